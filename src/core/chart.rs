@@ -1,0 +1,1 @@
+//! Chart geometry (being written).

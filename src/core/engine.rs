@@ -1,0 +1,215 @@
+//! The resolution engine: the four limits on the smallest detail at the target, and which governs.
+//!
+//! Formulas and sources: `shared/reference/resolution-model.md` §1–§5. Every figure is a distance
+//! at the target in the plane normal to the line of sight, so the four compare as they are; the
+//! ground-plane stretch of the sampling figure for oblique views is reported beside them.
+
+use crate::core::geometry::Geometry;
+use crate::core::optics;
+use crate::core::turbulence::{self, Profile, SlantPath};
+use serde::Serialize;
+
+/// Everything the engine needs, in SI units.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Setup {
+    pub sensor_width_m: f64,
+    pub sensor_height_m: f64,
+    pub cols: u32,
+    pub rows: u32,
+    pub focal_m: f64,
+    pub f_number: f64,
+    pub wavelength_m: f64,
+    pub geometry: Geometry,
+    pub profile: Profile,
+    pub speed_mps: f64,
+    pub exposure_s: f64,
+}
+
+impl Setup {
+    /// Pixel pitch p = sensor width / columns.
+    pub fn pixel_pitch_m(&self) -> f64 {
+        self.sensor_width_m / f64::from(self.cols.max(1))
+    }
+
+    /// The same setup seen from another place.
+    pub fn with_geometry(&self, geometry: Geometry) -> Setup {
+        Setup { geometry, ..*self }
+    }
+}
+
+/// One of the four things that can limit the detail an image shows.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Limit {
+    Sampling,
+    Diffraction,
+    Turbulence,
+    Motion,
+}
+
+impl Limit {
+    /// All four, in the order they are shown.
+    pub const ALL: [Limit; 4] = [Limit::Sampling, Limit::Diffraction, Limit::Turbulence, Limit::Motion];
+
+    /// The report's word for the limit.
+    pub fn key(self) -> &'static str {
+        match self {
+            Limit::Sampling => "sampling",
+            Limit::Diffraction => "diffraction",
+            Limit::Turbulence => "turbulence",
+            Limit::Motion => "motion",
+        }
+    }
+
+    /// The limit's name in plain words.
+    pub fn title(self) -> &'static str {
+        match self {
+            Limit::Sampling => "Pixel sampling (GSD)",
+            Limit::Diffraction => "Lens diffraction (Rayleigh)",
+            Limit::Turbulence => "Air turbulence (seeing)",
+            Limit::Motion => "Motion during the exposure",
+        }
+    }
+
+    /// What a person can change to make this limit smaller.
+    pub fn advice(self) -> &'static str {
+        match self {
+            Limit::Sampling => "Fly lower or stand closer, use a longer focal length, or a sensor with smaller pixels.",
+            Limit::Diffraction => "Open the aperture (a smaller f-number), or come closer; a longer lens at the same f-number also helps.",
+            Limit::Turbulence => "Shorten the air path (fly lower, stand closer), work early in the morning or in overcast, or keep the path away from hot ground.",
+            Limit::Motion => "Use a shorter exposure time or a slower ground speed.",
+        }
+    }
+}
+
+/// The four limits as distances at the target (m).
+#[derive(Clone, Copy, Debug, PartialEq, Serialize)]
+pub struct Limits {
+    pub sampling: f64,
+    pub diffraction: f64,
+    pub turbulence: f64,
+    pub motion: f64,
+}
+
+impl Limits {
+    /// The value of one limit.
+    pub fn get(&self, limit: Limit) -> f64 {
+        match limit {
+            Limit::Sampling => self.sampling,
+            Limit::Diffraction => self.diffraction,
+            Limit::Turbulence => self.turbulence,
+            Limit::Motion => self.motion,
+        }
+    }
+
+    /// The limits ordered from the largest (governing) down; ties keep the display order.
+    pub fn ranked(&self) -> [Limit; 4] {
+        let mut order = Limit::ALL;
+        order.sort_by(|a, b| self.get(*b).total_cmp(&self.get(*a)));
+        order
+    }
+
+    /// The governing limit and its value.
+    pub fn governing(&self) -> (Limit, f64) {
+        let top = self.ranked()[0];
+        (top, self.get(top))
+    }
+}
+
+/// What the engine finds for one setup.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Evaluation {
+    pub pitch_m: f64,
+    pub aperture_m: f64,
+    pub slant_range_m: f64,
+    pub look_angle_deg: f64,
+    /// Normal-plane GSD p·R/f (GIQE 5.0 §2.3).
+    pub gsd_m: f64,
+    /// Ground-plane GSD along the look direction, GSD/cos θ (GIQE 5.0).
+    pub gsd_ground_m: f64,
+    /// Geometric-mean ground GSD, GSD/√(sin ε) (GIQE 5.0).
+    pub gsd_geomean_m: f64,
+    /// GIQE-5 weighted GSD, GSD/(sin ε)^(1/4) (GIQE 5.0 eq. 5).
+    pub gsd_weighted_m: f64,
+    pub rayleigh_rad: f64,
+    pub r0_m: Option<f64>,
+    pub seeing_rad: f64,
+    pub motion_px: f64,
+    pub limits: Limits,
+    pub governing: Limit,
+    pub limit_m: f64,
+    /// The next largest limit and how many times the governing one exceeds it (≥ 1).
+    pub runner_up: Limit,
+    pub margin: f64,
+    /// Sampling ratio Q = λN/p.
+    pub q: f64,
+}
+
+/// A number that is finite and not negative, or zero.
+fn finite(x: f64) -> f64 {
+    if x.is_finite() && x > 0.0 {
+        x
+    } else {
+        0.0
+    }
+}
+
+/// Evaluates the four limits for a setup. Never panics; every figure is finite.
+pub fn evaluate(setup: &Setup) -> Evaluation {
+    let pitch = finite(setup.pixel_pitch_m());
+    let aperture = finite(optics::aperture_diameter(setup.focal_m, setup.f_number));
+    let geometry = setup.geometry;
+    let range = finite(geometry.slant_range_m());
+    let look = geometry.look_angle_rad();
+    let look = if look.is_finite() { look } else { 0.0 };
+    let elevation = (std::f64::consts::FRAC_PI_2 - look).max(1e-6);
+
+    let gsd = if setup.focal_m > 0.0 { finite(pitch * range / setup.focal_m) } else { 0.0 };
+    let cos_look = look.cos().max(1e-6);
+    let sin_elev = elevation.sin().max(1e-6);
+
+    let rayleigh = finite(optics::rayleigh_angle(setup.wavelength_m, aperture));
+    let r0 = turbulence::spherical_wave_r0(
+        &setup.profile,
+        SlantPath {
+            camera_altitude_m: geometry.height_m,
+            length_m: range,
+        },
+        setup.wavelength_m,
+    );
+    let seeing = finite(turbulence::seeing_angle(setup.wavelength_m, r0));
+    let motion = finite(setup.speed_mps * setup.exposure_s);
+
+    let limits = Limits {
+        sampling: gsd,
+        diffraction: finite(rayleigh * range),
+        turbulence: finite(seeing * range),
+        motion,
+    };
+    let ranked = limits.ranked();
+    let (governing, limit_m) = (ranked[0], limits.get(ranked[0]));
+    let runner_up = ranked[1];
+    let second = limits.get(runner_up);
+    let margin = if second > 0.0 { finite(limit_m / second).max(1.0) } else { 1.0 };
+
+    Evaluation {
+        pitch_m: pitch,
+        aperture_m: aperture,
+        slant_range_m: range,
+        look_angle_deg: look.to_degrees(),
+        gsd_m: gsd,
+        gsd_ground_m: finite(gsd / cos_look),
+        gsd_geomean_m: finite(gsd / sin_elev.sqrt()),
+        gsd_weighted_m: finite(gsd / sin_elev.powf(0.25)),
+        rayleigh_rad: rayleigh,
+        r0_m: r0.filter(|r| r.is_finite()),
+        seeing_rad: seeing,
+        motion_px: if gsd > 0.0 { finite(motion / gsd) } else { 0.0 },
+        limits,
+        governing,
+        limit_m,
+        runner_up,
+        margin,
+        q: finite(optics::sampling_ratio(setup.wavelength_m, setup.f_number, pitch)),
+    }
+}

@@ -1,0 +1,69 @@
+//! Diffraction by a circular aperture and the other optical transfer terms.
+//!
+//! Sources: Lord Rayleigh (1879) and Born & Wolf, *Principles of Optics*, §8.5 for the Airy
+//! pattern; Goodman, *Introduction to Fourier Optics*, ch. 6 for the diffraction MTF.
+
+use std::f64::consts::PI;
+
+/// First positive zero of the Bessel function J1, j₁,₁ (Abramowitz & Stegun, Table 9.5).
+pub const J1_FIRST_ZERO: f64 = 3.831_705_970_207_512_5;
+
+/// The Rayleigh factor j₁,₁/π: the first dark ring of the Airy pattern lies at this many λ/D.
+pub const RAYLEIGH_FACTOR: f64 = J1_FIRST_ZERO / PI;
+
+/// Aperture diameter D = f/N.
+pub fn aperture_diameter(focal_length_m: f64, f_number: f64) -> f64 {
+    if f_number > 0.0 {
+        focal_length_m / f_number
+    } else {
+        0.0
+    }
+}
+
+/// Rayleigh angular resolution (j₁,₁/π)·λ/D in radians (Born & Wolf §8.5).
+pub fn rayleigh_angle(wavelength_m: f64, aperture_diameter_m: f64) -> f64 {
+    if aperture_diameter_m > 0.0 {
+        RAYLEIGH_FACTOR * wavelength_m / aperture_diameter_m
+    } else {
+        f64::MAX
+    }
+}
+
+/// Sampling ratio Q = λN/p (GIQE 5.0; Fiete, Opt. Eng. 38(7), 1999).
+pub fn sampling_ratio(wavelength_m: f64, f_number: f64, pixel_pitch_m: f64) -> f64 {
+    if pixel_pitch_m > 0.0 {
+        wavelength_m * f_number / pixel_pitch_m
+    } else {
+        0.0
+    }
+}
+
+/// Diffraction MTF of an aberration-free circular pupil at normalised frequency v = ν·λ·N
+/// (Goodman, ch. 6): (2/π)[acos v − v·√(1 − v²)], zero at and beyond the cutoff v = 1.
+pub fn diffraction_mtf(normalised_frequency: f64) -> f64 {
+    let v = normalised_frequency.abs();
+    if v >= 1.0 || v.is_nan() {
+        return 0.0;
+    }
+    (2.0 / PI) * (v.acos() - v * (1.0 - v * v).sqrt())
+}
+
+/// |sinc(π·x)| with sinc(0) = 1: the MTF of a uniform blur of width d at frequency ν, x = d·ν.
+/// Used for the detector footprint and for linear motion (common practice; Goodman ch. 6).
+pub fn box_mtf(width_times_frequency: f64) -> f64 {
+    let x = PI * width_times_frequency;
+    if x.abs() < 1e-9 {
+        1.0
+    } else {
+        (x.sin() / x).abs()
+    }
+}
+
+/// Short-term description of what limits a sampled optical system, from Q (GIQE 5.0).
+pub fn sampling_regime(q: f64) -> &'static str {
+    if q < 2.0 {
+        "detector-limited: the pixels are coarser than the optics, fine patterns may alias"
+    } else {
+        "optics-limited: the lens blur spans more than two pixels"
+    }
+}

@@ -1,0 +1,183 @@
+//! The report: every computed figure of a scenario, in SI units, with the contract's field names
+//! (`shared/reference/url-and-report.md`). The `report` example prints it as JSON and the page
+//! shows the same values, each tagged with its field name.
+
+use crate::core::cautions::{self, Caution, CautionInputs};
+use crate::core::engine::{evaluate, Evaluation, Limit, Setup};
+use crate::core::optics;
+use crate::core::scenario::{FieldError, Offset, RawScenario, Scenario, CONTRACT_VERSION};
+use crate::core::solve::{focal_needed, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep};
+use crate::core::survey::{plan_survey, SurveyPlan};
+use crate::core::target::{person_identification_limit_m, task_chances, TaskChance};
+use serde::Serialize;
+
+/// Everything the planner computes for one scenario.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct Report {
+    pub v: u32,
+    pub name: String,
+    pub pitch_m: f64,
+    pub aperture_m: f64,
+    pub slant_range_m: f64,
+    pub look_angle_deg: f64,
+    pub gsd_m: f64,
+    pub gsd_ground_m: f64,
+    pub gsd_geomean_m: f64,
+    pub gsd_weighted_m: f64,
+    pub rayleigh_rad: f64,
+    pub diffraction_m: f64,
+    pub r0_m: Option<f64>,
+    pub seeing_rad: f64,
+    pub turbulence_m: f64,
+    pub motion_m: f64,
+    pub motion_px: f64,
+    pub limit_m: f64,
+    pub governing: Limit,
+    pub runner_up: Limit,
+    pub governing_margin: f64,
+    pub advice: &'static str,
+    pub q: f64,
+    pub sampling_regime: &'static str,
+    /// What the backward solves vary: height (drone) or ground distance (fixed camera).
+    pub solve_axis: Axis,
+    pub need_m: Option<f64>,
+    pub reach: Option<Reach>,
+    /// The greatest height or ground distance meeting the need (null when none or unbounded).
+    pub reach_m: Option<f64>,
+    pub focal_needed: Option<FocalNeed>,
+    pub focal_needed_m: Option<f64>,
+    pub diffraction_crossing: Crossing,
+    pub turbulence_crossing: Crossing,
+    pub envelope_changes: Vec<EnvelopeChange>,
+    pub target_m: Option<f64>,
+    pub target_cycles: Option<f64>,
+    pub target_chances: Vec<TaskChance>,
+    pub identifies_people: bool,
+    pub cautions: Vec<Caution>,
+    #[serde(flatten)]
+    pub survey: SurveyPlan,
+    pub errors: Vec<FieldError>,
+    pub ignored: Vec<String>,
+}
+
+/// A scenario with everything computed from it, for the page: the report plus the pieces the chart needs.
+#[derive(Clone, Debug)]
+pub struct Plan {
+    pub scenario: Scenario,
+    pub setup: Setup,
+    pub evaluation: Evaluation,
+    pub sweep: Sweep,
+    pub report: Report,
+}
+
+/// The axis the backward solves use: a fixed camera looking across at a target some distance off
+/// solves for ground distance; a camera looking down or tilted solves for height.
+pub fn solve_axis(scenario: &Scenario) -> Axis {
+    match scenario.offset {
+        Offset::GroundDistance(g) if g > 0.0 => Axis::GroundDistance,
+        _ => Axis::Height,
+    }
+}
+
+impl Plan {
+    /// Validates raw text and computes the whole plan; never panics.
+    pub fn from_raw(raw: &RawScenario) -> Plan {
+        let (scenario, errors) = Scenario::from_raw(raw);
+        Plan::build(scenario, errors)
+    }
+
+    /// Computes the whole plan for a validated scenario.
+    pub fn build(scenario: Scenario, errors: Vec<FieldError>) -> Plan {
+        let setup = scenario.setup();
+        let e = evaluate(&setup);
+        let axis = solve_axis(&scenario);
+        let sweep = Sweep::new(setup, axis);
+
+        let reach = scenario.need_m.map(|need| sweep.reach(need));
+        let reach_m = match reach {
+            Some(Reach::UpTo { position_m, .. }) => Some(position_m),
+            _ => None,
+        };
+        let focal = scenario.need_m.map(|need| focal_needed(&e, &setup, need));
+        let focal_needed_m = match focal {
+            Some(FocalNeed::AtLeast { focal_m, .. }) => Some(focal_m),
+            _ => None,
+        };
+
+        let (target_cycles, target_chances) = match scenario.target_m {
+            Some(t) => {
+                let (n, chances) = task_chances(t, e.limit_m);
+                (Some(n), chances)
+            }
+            None => (None, Vec::new()),
+        };
+        let identifies_people = e.limit_m <= person_identification_limit_m();
+        let cautions = cautions::cautions(CautionInputs {
+            height_m: scenario.height_m,
+            airborne: axis == Axis::Height,
+            identifies_people,
+        });
+        let survey = plan_survey(&scenario, &e);
+
+        let report = Report {
+            v: CONTRACT_VERSION,
+            name: scenario.name.clone(),
+            pitch_m: e.pitch_m,
+            aperture_m: e.aperture_m,
+            slant_range_m: e.slant_range_m,
+            look_angle_deg: e.look_angle_deg,
+            gsd_m: e.gsd_m,
+            gsd_ground_m: e.gsd_ground_m,
+            gsd_geomean_m: e.gsd_geomean_m,
+            gsd_weighted_m: e.gsd_weighted_m,
+            rayleigh_rad: e.rayleigh_rad,
+            diffraction_m: e.limits.diffraction,
+            r0_m: e.r0_m,
+            seeing_rad: e.seeing_rad,
+            turbulence_m: e.limits.turbulence,
+            motion_m: e.limits.motion,
+            motion_px: e.motion_px,
+            limit_m: e.limit_m,
+            governing: e.governing,
+            runner_up: e.runner_up,
+            governing_margin: e.margin,
+            advice: e.governing.advice(),
+            q: e.q,
+            sampling_regime: optics::sampling_regime(e.q),
+            solve_axis: axis,
+            need_m: scenario.need_m,
+            reach,
+            reach_m,
+            focal_needed: focal,
+            focal_needed_m,
+            diffraction_crossing: sweep.crossing(Limit::Diffraction, Limit::Sampling),
+            turbulence_crossing: sweep.crossing(Limit::Turbulence, Limit::Sampling),
+            envelope_changes: sweep.envelope_changes(),
+            target_m: scenario.target_m,
+            target_cycles,
+            target_chances,
+            identifies_people,
+            cautions,
+            survey,
+            errors,
+            ignored: scenario.ignored_keys(),
+        };
+        Plan {
+            scenario,
+            setup,
+            evaluation: e,
+            sweep,
+            report,
+        }
+    }
+}
+
+/// The report for a URL query.
+pub fn report_for_query(query: &str) -> Report {
+    Plan::from_raw(&RawScenario::from_query(query)).report
+}
+
+/// The report as one line of JSON.
+pub fn report_json(query: &str) -> String {
+    serde_json::to_string(&report_for_query(query)).unwrap_or_else(|e| format!("{{\"errors\":[{{\"key\":\"\",\"message\":\"{e}\"}}]}}"))
+}

@@ -1,0 +1,104 @@
+//! What a target will look like: Johnson criteria and the target transfer probability function.
+//!
+//! Sources: J. Johnson, "Analysis of image forming systems", Proc. Image Intensifier Symposium,
+//! 1958 (AD220160) for the cycles; the TTPF form P = (N/N50)^E/(1 + (N/N50)^E),
+//! E = 2.7 + 0.7·N/N50, as used in range-performance modelling (resolution-model §6).
+
+use serde::Serialize;
+
+/// A discrimination task.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Task {
+    Detection,
+    Orientation,
+    Recognition,
+    Identification,
+}
+
+impl Task {
+    /// All tasks, easiest first.
+    pub const ALL: [Task; 4] = [Task::Detection, Task::Orientation, Task::Recognition, Task::Identification];
+
+    /// Johnson's cycles across the critical dimension for a 50 % chance (Johnson 1958).
+    pub fn n50(self) -> f64 {
+        match self {
+            Task::Detection => 1.0,
+            Task::Orientation => 1.4,
+            Task::Recognition => 4.0,
+            Task::Identification => 6.4,
+        }
+    }
+
+    /// The task in plain words.
+    pub fn describe(self) -> &'static str {
+        match self {
+            Task::Detection => "see that something is there",
+            Task::Orientation => "tell which way it lies",
+            Task::Recognition => "tell what kind of thing it is (a person, a vehicle, an animal)",
+            Task::Identification => "tell which one it is (this person, this model)",
+        }
+    }
+}
+
+/// Critical dimension commonly used for a standing person in range-performance work (from memory;
+/// resolution-model §6).
+pub const PERSON_CRITICAL_DIMENSION_M: f64 = 0.75;
+
+/// Target transfer probability function P(N/N50).
+pub fn ttpf(cycles_ratio: f64) -> f64 {
+    if !(cycles_ratio > 0.0) || !cycles_ratio.is_finite() {
+        return if cycles_ratio == f64::INFINITY { 1.0 } else { 0.0 };
+    }
+    let e = 2.7 + 0.7 * cycles_ratio;
+    let t = cycles_ratio.powf(e);
+    if t.is_finite() {
+        t / (1.0 + t)
+    } else {
+        1.0
+    }
+}
+
+/// Resolvable cycles across a target: critical dimension / (2 × the governing limit).
+pub fn cycles_across(critical_dimension_m: f64, limit_m: f64) -> f64 {
+    if limit_m > 0.0 && critical_dimension_m > 0.0 {
+        let n = critical_dimension_m / (2.0 * limit_m);
+        if n.is_finite() {
+            n
+        } else {
+            f64::MAX
+        }
+    } else if critical_dimension_m > 0.0 {
+        f64::MAX
+    } else {
+        0.0
+    }
+}
+
+/// The chance of each task for one target.
+#[derive(Clone, Copy, Debug, PartialEq, Serialize)]
+pub struct TaskChance {
+    pub task: Task,
+    pub cycles_needed: f64,
+    pub probability: f64,
+}
+
+/// The chances of all four tasks for a target of `critical_dimension_m` under `limit_m`.
+pub fn task_chances(critical_dimension_m: f64, limit_m: f64) -> (f64, Vec<TaskChance>) {
+    let n = cycles_across(critical_dimension_m, limit_m);
+    let chances = Task::ALL
+        .iter()
+        .map(|&task| TaskChance {
+            task,
+            cycles_needed: task.n50(),
+            probability: ttpf(n / task.n50()),
+        })
+        .collect();
+    (n, chances)
+}
+
+/// The largest limit at which a person (0.75 m) can be identified with a 50 % chance:
+/// 0.75 m / (2 × 6.4).
+pub fn person_identification_limit_m() -> f64 {
+    PERSON_CRITICAL_DIMENSION_M / (2.0 * Task::Identification.n50())
+}
