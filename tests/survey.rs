@@ -1,0 +1,588 @@
+//! Survey layout (resolution-model §7): a published worked example, the formulas on a small field,
+//! the messages for missing or bad inputs, the layout diagram, and "never NaN, never endless"
+//! properties over extreme inputs.
+
+use proptest::prelude::*;
+use sharpfield::core::demo::pasture_survey;
+use sharpfield::core::engine::evaluate;
+use sharpfield::core::report::report_json;
+use sharpfield::core::scenario::{Offset, Scenario};
+use sharpfield::core::survey::{
+    layout, overlap_guidance, plan_survey, SurveyPlan, MAX_DRAWN_LINES, MAX_LINES, MAX_PHOTOS,
+};
+
+/// The plan of a scenario, with the engine's evaluation as the report computes it.
+fn plan(scenario: &Scenario) -> SurveyPlan {
+    plan_survey(scenario, &evaluate(&scenario.setup()))
+}
+
+fn close(actual: f64, expected: f64, tolerance: f64) {
+    assert!(
+        (actual - expected).abs() <= tolerance,
+        "{actual} differs from {expected} by more than {tolerance}"
+    );
+}
+
+fn has_note(plan: &SurveyPlan, words: &str) -> bool {
+    plan.survey_notes.iter().any(|n| n.contains(words))
+}
+
+// NPTEL course 105104100 (Photogrammetry), lecture "Flight planning", Example 1: "An area 45 km
+// long and 36 km wide is to be photographed to an average scale of 1:12000, using an aerial
+// camera of f = 21 cm. The speed of the aircraft is 200 km/h. The photographs are 23 cm square,
+// with a longitudinal overlap of at least 60% and lateral overlap of 30%." Its stated results:
+// air base 1104 m, exposure interval 19.872 s (set to 19 s), 20 flight lines, 44 photos per line
+// before extras, 48 with two extra at each end, 960 photos in all.
+//
+// As a scenario: a 230 mm square "sensor" behind a 210 mm lens at H = 12000 × 0.21 m = 2520 m
+// above the ground, so the footprint is 0.23 m × 12000 = 2760 m on a side. The flight lines run
+// along the 45 km length, so the 36 km width lies across them.
+fn nptel_example_1() -> Scenario {
+    Scenario {
+        sensor_width_mm: 230.0,
+        sensor_height_mm: 230.0,
+        focal_mm: 210.0,
+        height_m: 12_000.0 * 0.21,
+        offset: Offset::GroundDistance(0.0),
+        speed_mps: 200.0 / 3.6,
+        area_width_m: Some(36_000.0),
+        area_length_m: Some(45_000.0),
+        front_overlap_pct: 60.0,
+        side_overlap_pct: 30.0,
+        ..pasture_survey()
+    }
+}
+
+#[test]
+fn nptel_example_1_base_interval_and_lines() {
+    // Source: NPTEL 105104100, "Flight planning", Example 1 (see above).
+    let p = plan(&nptel_example_1());
+    close(p.footprint_across_m, 2760.0, 1e-9);
+    close(p.footprint_along_m, 2760.0, 1e-9);
+    // "Ground distance between exposures" = 1104 m.
+    close(p.base_m, 1104.0, 1e-9);
+    // "Exposure interval" = 19.872 s.
+    close(p.trigger_s.expect("speed is given"), 19.872, 1e-9);
+    // Lines 1932 m apart (0.7 × 2760), and "Number of flight lines" = 20.
+    close(p.line_spacing_m, 1932.0, 1e-9);
+    assert_eq!(p.lines, Some(20));
+}
+
+#[test]
+fn nptel_example_1_width_is_across_the_lines() {
+    // Source: NPTEL 105104100, Example 1. Only the 36 km side across the lines gives the stated
+    // 20 lines: with the 45 km side across, ceil(45000/1932) + 1 would be 25.
+    let swapped = Scenario {
+        area_width_m: Some(45_000.0),
+        area_length_m: Some(36_000.0),
+        ..nptel_example_1()
+    };
+    assert_eq!(plan(&swapped).lines, Some(25));
+}
+
+#[test]
+fn nptel_example_1_photos_as_the_example_counts_them() {
+    // Source: NPTEL 105104100, Example 1. The example does not count photos at the 1104 m base:
+    // it rounds the interval down to whole seconds (19 s, so that the overlap stays at least
+    // 60 %), takes the base flown in 19 s at 55.55 m/s (1055.45 m), counts photos per line from
+    // that, and then adds two extra photos at each end of every line. The formulas on its page
+    // are images we could not read; its numbers (44 per line, 48 with extras, 960 in all) agree
+    // with ceil(length/B) + 1 at the adjusted base, which is the planner's formula, so this test
+    // follows the example's steps with the planner and adds the extras as the example does.
+    let first = plan(&nptel_example_1());
+    let interval_s = first.trigger_s.expect("speed is given").floor();
+    assert_eq!(interval_s, 19.0);
+    let speed_as_rounded_in_the_example = 55.55;
+    let adjusted_base = speed_as_rounded_in_the_example * interval_s;
+    close(adjusted_base, 1055.45, 1e-9);
+    // The front overlap that gives that base with a 2760 m footprint.
+    let front_overlap_pct = 100.0 * (1.0 - adjusted_base / first.footprint_along_m);
+    let adjusted = plan(&Scenario {
+        front_overlap_pct,
+        ..nptel_example_1()
+    });
+    close(adjusted.base_m, 1055.45, 1e-9);
+    assert_eq!(adjusted.photos_per_line, Some(44));
+    let extras_per_line = 2 + 2;
+    let with_extras = adjusted.photos_per_line.map(|p| p + extras_per_line);
+    assert_eq!(with_extras, Some(48));
+    assert_eq!(
+        with_extras.zip(adjusted.lines).map(|(p, n)| p * n),
+        Some(960)
+    );
+    // The planner's own total has no extras: 44 × 20.
+    assert_eq!(adjusted.photos, Some(880));
+}
+
+// The demo field worked by hand from the formulas in resolution-model §7 and the brief:
+// 13.2 × 8.8 mm sensor, 8.8 mm lens, 80 m → footprint 120 m across, 80 m along; 75 % / 65 %
+// overlap → B = 20 m, S = 42 m; 400 m × 600 m → ceil(400/42) + 1 = 11 lines of
+// 600/20 + 1 = 31 photos.
+#[test]
+fn demo_field_by_hand() {
+    let s = pasture_survey();
+    let p = plan(&s);
+    close(p.footprint_across_m, 120.0, 1e-9);
+    close(p.footprint_along_m, 80.0, 1e-9);
+    close(p.base_m, 20.0, 1e-9);
+    close(p.line_spacing_m, 42.0, 1e-9);
+    assert_eq!(p.lines, Some(11));
+    assert_eq!(p.photos_per_line, Some(31));
+    assert_eq!(p.photos, Some(341));
+    // Path: 11 lines of 600 m and 10 hops of 42 m.
+    close(p.path_length_m.unwrap(), 11.0 * 600.0 + 10.0 * 42.0, 1e-6);
+    // Time: 7020 m at 8 m/s and 10 turns of 10 s.
+    close(p.flight_time_s.unwrap(), 7020.0 / 8.0 + 100.0, 1e-6);
+    // 977.5 s in 25-minute batteries.
+    assert_eq!(p.batteries, Some(1));
+    close(p.storage_mb.unwrap(), 3410.0, 1e-6);
+    close(p.trigger_s.unwrap(), 2.5, 1e-12);
+    // The trigger limit: 20 m every 2 s.
+    close(p.max_speed_trigger_mps.unwrap(), 10.0, 1e-12);
+    // The blur limit: 0.5 px of GSD p·h/f (GIQE 5.0 §2.3) in 1 ms.
+    let gsd = 13.2e-3 / 5472.0 * 80.0 / 8.8e-3;
+    close(p.max_speed_blur_mps.unwrap(), 0.5 * gsd / 0.001, 1e-9);
+    assert!(p.speed_flags.is_empty(), "{:?}", p.speed_flags);
+    assert_eq!(p.overlap_guidance.code, "mapping");
+}
+
+#[test]
+fn batteries_round_up() {
+    // ceil(flight time / endurance): 977.5 s with 5-minute (300 s) batteries needs 4.
+    let p = plan(&Scenario {
+        endurance_min: 5.0,
+        ..pasture_survey()
+    });
+    assert_eq!(p.batteries, Some(4));
+}
+
+#[test]
+fn an_exact_multiple_does_not_gain_a_station_from_rounding() {
+    // With 90 % front overlap, 1 − 0.9 is 0.09999999999999998 in floating point, so B comes out a
+    // hair under 8 m and 80/B a hair over 10. The count must still be 80/8 + 1 = 11.
+    let p = plan(&Scenario {
+        front_overlap_pct: 90.0,
+        area_length_m: Some(80.0),
+        ..pasture_survey()
+    });
+    assert!(
+        80.0 / p.base_m > 10.0,
+        "the rounding this test is about did not occur"
+    );
+    assert_eq!(p.photos_per_line, Some(11));
+}
+
+#[test]
+fn speed_flags_name_the_limit_and_the_change() {
+    let p = plan(&Scenario {
+        speed_mps: 20.0,
+        ..pasture_survey()
+    });
+    let codes: Vec<&str> = p.speed_flags.iter().map(|f| f.code).collect();
+    assert_eq!(codes, ["blur", "trigger"]);
+    let blur = &p.speed_flags[0];
+    close(blur.limit_mps, p.max_speed_blur_mps.unwrap(), 0.0);
+    assert!(blur.change.contains("Slow to") && blur.change.contains("shorten the exposure"));
+    let trigger = &p.speed_flags[1];
+    close(trigger.limit_mps, 10.0, 1e-12);
+    assert!(trigger.change.contains("lower the front overlap"));
+    assert!(trigger.change.contains("shorter interval"));
+}
+
+#[test]
+fn a_camera_without_a_minimum_interval_sets_no_trigger_limit() {
+    let p = plan(&Scenario {
+        trigger_s: 0.0,
+        speed_mps: 20.0,
+        ..pasture_survey()
+    });
+    assert_eq!(p.max_speed_trigger_mps, None);
+    assert!(p.speed_flags.iter().all(|f| f.code != "trigger"));
+}
+
+#[test]
+fn speed_zero_leaves_time_out_with_a_note() {
+    let p = plan(&Scenario {
+        speed_mps: 0.0,
+        ..pasture_survey()
+    });
+    assert_eq!(p.trigger_s, None);
+    assert_eq!(p.flight_time_s, None);
+    assert_eq!(p.batteries, None);
+    assert!(
+        p.lines.is_some() && p.photos.is_some(),
+        "counts do not need a speed"
+    );
+    assert!(has_note(&p, "ground speed is 0"));
+    assert!(p.speed_flags.is_empty());
+}
+
+#[test]
+fn missing_area_gives_no_counts_and_says_so() {
+    let p = plan(&Scenario {
+        area_width_m: None,
+        area_length_m: None,
+        ..pasture_survey()
+    });
+    assert_eq!((p.lines, p.photos_per_line, p.photos), (None, None, None));
+    assert_eq!(
+        (p.path_length_m, p.flight_time_s, p.batteries, p.storage_mb),
+        (None, None, None, None)
+    );
+    assert!(has_note(&p, "No survey area given"));
+    // The per-photo figures need no area.
+    close(p.base_m, 20.0, 1e-9);
+
+    let p = plan(&Scenario {
+        area_length_m: None,
+        ..pasture_survey()
+    });
+    assert_eq!(p.lines, Some(11));
+    assert_eq!(p.photos, None);
+    assert!(has_note(&p, "length along the lines (al) is missing"));
+}
+
+#[test]
+fn a_tilted_camera_is_noted() {
+    for offset in [Offset::Tilt(30.0), Offset::GroundDistance(50.0)] {
+        let p = plan(&Scenario {
+            offset,
+            ..pasture_survey()
+        });
+        assert!(has_note(&p, "looking straight down"), "{offset:?}");
+        // The footprint stays the nadir one.
+        close(p.footprint_across_m, 120.0, 1e-9);
+    }
+    assert!(!has_note(&plan(&pasture_survey()), "looking straight down"));
+}
+
+#[test]
+fn overlap_guidance_follows_common_practice() {
+    // Common practice (resolution-model §7 and the brief): about 75–80 / 60–70 for orthomosaics,
+    // 80–90 / 70–80 for 3D models, 60 / 30 for classic film surveys.
+    let cases = [
+        ((75.0, 65.0), "mapping"),
+        ((80.0, 70.0), "3d"),
+        ((90.0, 80.0), "3d"),
+        ((60.0, 30.0), "light"),
+        ((70.0, 60.0), "light"),
+        ((50.0, 30.0), "low"),
+        ((75.0, 20.0), "low"),
+        ((95.0, 60.0), "heavy"),
+        ((80.0, 85.0), "heavy"),
+        ((f64::NAN, 60.0), "low"),
+    ];
+    for ((front, side), code) in cases {
+        let g = overlap_guidance(front, side);
+        assert_eq!(g.code, code, "{front}/{side}: {}", g.text);
+        assert!(g.text.starts_with("Overlap of"));
+    }
+}
+
+#[test]
+fn absurd_counts_are_withheld_with_a_note() {
+    // 100 km square at 0.1 m height with a long lens: a 0.12 mm footprint.
+    let s = Scenario {
+        sensor_width_mm: 6.17,
+        sensor_height_mm: 4.55,
+        focal_mm: 5000.0,
+        height_m: 0.1,
+        area_width_m: Some(100_000.0),
+        area_length_m: Some(100_000.0),
+        front_overlap_pct: 95.0,
+        side_overlap_pct: 95.0,
+        ..pasture_survey()
+    };
+    let p = plan(&s);
+    assert_eq!((p.lines, p.photos_per_line, p.photos), (None, None, None));
+    assert!(has_note(&p, &format!("More than {MAX_LINES} flight lines")));
+    assert!(has_note(
+        &p,
+        &format!("More than {MAX_PHOTOS} photos on each line")
+    ));
+    assert!(layout(&p, &s).is_none());
+
+    // Lines and photos per line within their caps, the total above.
+    let s = Scenario {
+        area_width_m: Some(100_000.0),
+        area_length_m: Some(100_000.0),
+        height_m: 10.0,
+        ..pasture_survey()
+    };
+    let p = plan(&s);
+    assert!(p.lines.is_some() && p.photos_per_line.is_some());
+    assert_eq!(p.photos, None);
+    assert_eq!(p.storage_mb, None);
+    assert!(has_note(&p, "photos in all"));
+}
+
+#[test]
+fn the_report_carries_the_survey_fields() {
+    // The report flattens the plan into its own object (url-and-report.md, "Report").
+    let json = report_json(&pasture_survey().to_query());
+    let v: serde_json::Value = serde_json::from_str(&json).expect("the report is JSON");
+    for key in [
+        "footprint_across_m",
+        "footprint_along_m",
+        "base_m",
+        "line_spacing_m",
+        "trigger_s",
+        "lines",
+        "photos",
+        "path_length_m",
+        "flight_time_s",
+        "batteries",
+        "storage_mb",
+        "max_speed_blur_mps",
+        "max_speed_trigger_mps",
+        "speed_flags",
+        "overlap_guidance",
+        "survey_notes",
+    ] {
+        assert!(v.get(key).is_some(), "the report lacks {key}");
+    }
+    assert_eq!(v["lines"], 11);
+    assert_eq!(v["photos"], 341);
+}
+
+#[test]
+fn layout_of_the_demo_field() {
+    let s = pasture_survey();
+    let p = plan(&s);
+    let l = layout(&p, &s).expect("the demo has an area");
+    assert_eq!((l.lines_total, l.lines_omitted, l.lines.len()), (11, 0, 11));
+    // Serpentine: line 1 along the heading from the first corner, line 2 back.
+    assert!(l.lines[0].forward && !l.lines[1].forward);
+    assert_eq!(
+        (l.lines[0].start.x, l.lines[0].start.y, l.lines[0].end.y),
+        (0.0, 0.0, 600.0)
+    );
+    assert_eq!((l.lines[1].start.y, l.lines[1].end.y), (600.0, 0.0));
+    close(l.lines[1].start.x, 42.0, 1e-9);
+    // The last line lies on or beyond the far edge, by less than one spacing.
+    let last_x = l.lines[10].start.x;
+    assert!((400.0..400.0 + 42.0).contains(&last_x));
+
+    // Three photos of line 1 and the one of line 2 beside line 1's first (its last, flying back).
+    let f = &l.footprints;
+    assert_eq!(f.len(), 4);
+    assert_eq!((f[3].line, f[3].photo), (2, 31));
+    // Front overlap: neighbouring photos of line 1 share 75 % of the 80 m footprint length.
+    let shared_along = (f[0].rect.y + f[0].rect.height) - f[1].rect.y;
+    close(shared_along, 0.75 * 80.0, 1e-9);
+    // Side overlap: line 1's and line 2's photos share 65 % of the 120 m footprint width.
+    let shared_across = (f[0].rect.x + f[0].rect.width) - f[3].rect.x;
+    close(shared_across, 0.65 * 120.0, 1e-9);
+
+    // The bounds hold everything drawn.
+    let b = l.bounds;
+    for r in std::iter::once(l.area).chain(f.iter().map(|f| f.rect)) {
+        assert!(
+            r.x >= b.x
+                && r.y >= b.y
+                && r.x + r.width <= b.x + b.width
+                && r.y + r.height <= b.y + b.height
+        );
+    }
+}
+
+#[test]
+fn layout_draws_at_most_sixty_lines() {
+    let s = Scenario {
+        area_width_m: Some(10_000.0),
+        ..pasture_survey()
+    };
+    let p = plan(&s);
+    let l = layout(&p, &s).unwrap();
+    // ceil(10000/42) + 1 = 240 lines.
+    assert_eq!(l.lines_total, 240);
+    assert_eq!(l.lines.len() as u64, MAX_DRAWN_LINES);
+    assert_eq!(l.lines_omitted, 240 - MAX_DRAWN_LINES);
+}
+
+#[test]
+fn small_areas_keep_the_plus_one_convention() {
+    let s = Scenario {
+        area_width_m: Some(1.0),
+        area_length_m: Some(1.0),
+        ..pasture_survey()
+    };
+    let p = plan(&s);
+    assert_eq!((p.lines, p.photos_per_line), (Some(2), Some(2)));
+    let s = Scenario {
+        area_width_m: Some(0.0),
+        area_length_m: Some(0.0),
+        ..pasture_survey()
+    };
+    let p = plan(&s);
+    assert_eq!((p.lines, p.photos_per_line), (Some(1), Some(1)));
+    let l = layout(&p, &s).unwrap();
+    assert_eq!(l.footprints.len(), 1);
+}
+
+/// Every number in the plan is finite, counts keep within their caps, and the plan writes as JSON.
+fn check_sane(s: &Scenario) {
+    let p = plan(s);
+    let mut numbers = vec![
+        p.footprint_across_m,
+        p.footprint_along_m,
+        p.base_m,
+        p.line_spacing_m,
+    ];
+    numbers.extend(
+        [
+            p.trigger_s,
+            p.path_length_m,
+            p.flight_time_s,
+            p.storage_mb,
+            p.max_speed_blur_mps,
+            p.max_speed_trigger_mps,
+        ]
+        .into_iter()
+        .flatten(),
+    );
+    numbers.extend(p.speed_flags.iter().map(|f| f.limit_mps));
+    assert!(numbers.iter().all(|v| v.is_finite()), "{p:?}");
+    assert!(p.lines.is_none_or(|n| (1..=MAX_LINES).contains(&n)));
+    assert!(p
+        .photos_per_line
+        .is_none_or(|n| (1..=MAX_PHOTOS).contains(&n)));
+    assert!(p.photos.is_none_or(|n| n <= MAX_PHOTOS));
+    if let (Some(n), Some(k), Some(t)) = (p.lines, p.photos_per_line, p.photos) {
+        assert_eq!(n * k, t);
+    }
+    assert!(serde_json::to_string(&p).is_ok());
+    if let Some(l) = layout(&p, s) {
+        assert!(l.lines.len() as u64 <= MAX_DRAWN_LINES);
+        assert_eq!(l.lines.len() as u64 + l.lines_omitted, l.lines_total);
+        let b = l.bounds;
+        assert!([b.x, b.y, b.width, b.height].iter().all(|v| v.is_finite()));
+    }
+}
+
+#[test]
+fn extreme_inputs_stay_finite() {
+    let base = pasture_survey();
+    let odd = [
+        0.0,
+        -1.0,
+        1e-300,
+        1e300,
+        f64::NAN,
+        f64::INFINITY,
+        f64::NEG_INFINITY,
+    ];
+    for v in odd {
+        check_sane(&Scenario {
+            height_m: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            focal_mm: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            sensor_width_mm: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            speed_mps: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            shutter_s: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            trigger_s: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            endurance_min: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            turn_s: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            photo_mb: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            blur_budget_px: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            front_overlap_pct: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            side_overlap_pct: v,
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            area_width_m: Some(v),
+            ..base.clone()
+        });
+        check_sane(&Scenario {
+            area_length_m: Some(v),
+            ..base.clone()
+        });
+    }
+    for pct in [95.0, 99.999, 100.0, 150.0] {
+        check_sane(&Scenario {
+            front_overlap_pct: pct,
+            side_overlap_pct: pct,
+            ..base.clone()
+        });
+    }
+    let p = plan(&Scenario {
+        front_overlap_pct: 100.0,
+        ..base.clone()
+    });
+    assert_eq!(p.photos_per_line, None);
+    assert!(has_note(&p, "front overlap must be"));
+}
+
+proptest! {
+    // Inputs across the contract's accepted ranges (scenario.rs NUMBER_SPECS), including the
+    // corners the brief names: 95 % overlap, a 1 m area, 100 km at 0.1 m with a long lens.
+    #[test]
+    fn never_nan_never_endless(
+        sw in 0.1f64..200.0,
+        sh in 0.1f64..200.0,
+        focal in prop_oneof![Just(0.5), Just(5000.0), 0.5f64..5000.0],
+        h in prop_oneof![Just(0.1), Just(20_000.0), 0.1f64..20_000.0],
+        speed in prop_oneof![Just(0.0), 0.0f64..150.0],
+        shutter in 1e-6f64..10.0,
+        aw in prop_oneof![Just(1.0), Just(100_000.0), 1.0f64..100_000.0],
+        al in prop_oneof![Just(1.0), Just(100_000.0), 1.0f64..100_000.0],
+        fo in prop_oneof![Just(0.0), Just(95.0), 0.0f64..=95.0],
+        so in prop_oneof![Just(0.0), Just(95.0), 0.0f64..=95.0],
+        trig in 0.0f64..600.0,
+        endur in 1.0f64..600.0,
+        turn in 0.0f64..600.0,
+        mb in 0.0f64..2000.0,
+        blur in 0.05f64..10.0,
+    ) {
+        check_sane(&Scenario {
+            sensor_width_mm: sw,
+            sensor_height_mm: sh,
+            focal_mm: focal,
+            height_m: h,
+            speed_mps: speed,
+            shutter_s: shutter,
+            area_width_m: Some(aw),
+            area_length_m: Some(al),
+            front_overlap_pct: fo,
+            side_overlap_pct: so,
+            trigger_s: trig,
+            endurance_min: endur,
+            turn_s: turn,
+            photo_mb: mb,
+            blur_budget_px: blur,
+            ..pasture_survey()
+        });
+    }
+}
