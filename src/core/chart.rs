@@ -1,1 +1,250 @@
-//! Chart geometry (being written).
+//! Geometry of the chart of the four limits against height (or ground distance), computed in plain
+//! Rust so it is tested natively; the UI only turns it into SVG elements.
+
+use crate::core::cautions::COMMON_HEIGHT_CAP_M;
+use crate::core::engine::{evaluate, Limit};
+use crate::core::format::{significant, METRES_PER_FOOT, METRES_PER_INCH};
+use crate::core::scenario::Units;
+use crate::core::solve::{Axis, Sweep};
+
+/// Size of the chart's view box and the margins around the plot area, in SVG user units.
+pub const WIDTH: f64 = 640.0;
+pub const HEIGHT: f64 = 360.0;
+const LEFT: f64 = 64.0;
+const RIGHT: f64 = 16.0;
+const TOP: f64 = 16.0;
+const BOTTOM: f64 = 48.0;
+const SAMPLES: usize = 121;
+
+/// One curve of the chart.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Series {
+    pub limit: Limit,
+    /// SVG path data in view-box units.
+    pub path: String,
+    /// Where the curve's label sits (right end of the curve).
+    pub label_x: f64,
+    pub label_y: f64,
+}
+
+/// A tick on an axis: its position in view-box units and its label.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Tick {
+    pub at: f64,
+    pub label: String,
+}
+
+/// A vertical marker (current position, height cap, crossovers) or horizontal one (the need).
+#[derive(Clone, Debug, PartialEq)]
+pub struct Marker {
+    pub kind: &'static str,
+    pub at: f64,
+    pub label: String,
+}
+
+/// Everything the UI needs to draw the chart.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Chart {
+    pub plot_left: f64,
+    pub plot_right: f64,
+    pub plot_top: f64,
+    pub plot_bottom: f64,
+    pub x_title: String,
+    pub y_title: String,
+    pub series: Vec<Series>,
+    pub envelope: String,
+    pub x_ticks: Vec<Tick>,
+    pub y_ticks: Vec<Tick>,
+    /// Vertical markers along the x axis.
+    pub x_markers: Vec<Marker>,
+    /// Horizontal markers along the y axis.
+    pub y_markers: Vec<Marker>,
+    /// The largest x shown, in metres.
+    pub x_max_m: f64,
+}
+
+/// A "nice" step (1, 2 or 5 × 10ⁿ) that splits `span` into about `count` parts.
+pub fn nice_step(span: f64, count: f64) -> f64 {
+    if !(span > 0.0 && span.is_finite() && count > 0.0) {
+        return 1.0;
+    }
+    let raw = span / count;
+    let power = 10f64.powf(raw.log10().floor());
+    let fraction = raw / power;
+    let nice = if fraction <= 1.0 {
+        1.0
+    } else if fraction <= 2.0 {
+        2.0
+    } else if fraction <= 5.0 {
+        5.0
+    } else {
+        10.0
+    };
+    nice * power
+}
+
+/// A display unit for an axis: its name and how many metres one of it is.
+fn axis_unit(max_m: f64, units: Units) -> (&'static str, f64) {
+    match units {
+        Units::Metric if max_m < 0.02 => ("mm", 0.001),
+        Units::Metric if max_m < 2.0 => ("cm", 0.01),
+        Units::Metric if max_m < 5000.0 => ("m", 1.0),
+        Units::Metric => ("km", 1000.0),
+        Units::Imperial if max_m < 3.0 * METRES_PER_FOOT => ("in", METRES_PER_INCH),
+        Units::Imperial if max_m < 16_000.0 => ("ft", METRES_PER_FOOT),
+        Units::Imperial => ("mi", 1609.344),
+    }
+}
+
+/// Ticks from 0 to `max_m` in display units, mapped by `to_px`.
+fn ticks(max_m: f64, units: Units, to_px: impl Fn(f64) -> f64) -> (Vec<Tick>, &'static str) {
+    let (name, per) = axis_unit(max_m, units);
+    let span = max_m / per;
+    let step = nice_step(span, 5.0);
+    let mut out = Vec::new();
+    let mut i = 0.0;
+    while i * step <= span * (1.0 + 1e-9) && out.len() < 20 {
+        let value = i * step;
+        out.push(Tick {
+            at: to_px(value * per),
+            label: significant(value),
+        });
+        i += 1.0;
+    }
+    (out, name)
+}
+
+/// The largest x the chart shows: enough to see the current position, the reach and, for a
+/// drone, the common 120 m height cap, rounded up to a nice number.
+fn x_extent(axis: Axis, current: f64, reach: Option<f64>) -> f64 {
+    let mut wanted = (current * 2.0).max(reach.unwrap_or(0.0) * 1.25);
+    if axis == Axis::Height {
+        wanted = wanted.max(COMMON_HEIGHT_CAP_M * 1.25);
+    }
+    let (lo, hi) = axis.domain();
+    let wanted = wanted.clamp(lo * 10.0, hi);
+    let step = nice_step(wanted, 5.0);
+    ((wanted / step).ceil() * step).min(hi)
+}
+
+/// Builds the chart for a sweep. `need_m` draws the required resolution, `reach_m` helps choose the
+/// x range, `crossings` are positions (m) to mark.
+pub fn build(sweep: &Sweep, need_m: Option<f64>, reach_m: Option<f64>, crossings: &[f64], units: Units) -> Chart {
+    let axis = sweep.axis;
+    let x_max = x_extent(axis, sweep.current(), reach_m);
+    let xs: Vec<f64> = (1..=SAMPLES).map(|i| x_max * i as f64 / SAMPLES as f64).collect();
+    let evaluations: Vec<_> = xs.iter().map(|&x| evaluate(&sweep.setup_at(x))).collect();
+
+    let envelope_max = evaluations.iter().map(|e| e.limit_m).fold(0.0, f64::max);
+    let y_wanted = envelope_max.max(need_m.unwrap_or(0.0) * 1.2).max(1e-6);
+    let (_, y_per) = axis_unit(y_wanted, units);
+    let y_step = nice_step(y_wanted / y_per, 5.0) * y_per;
+    let y_max = (y_wanted / y_step).ceil() * y_step;
+
+    let plot_right = WIDTH - RIGHT;
+    let plot_bottom = HEIGHT - BOTTOM;
+    let to_x = |m: f64| LEFT + (plot_right - LEFT) * (m / x_max).clamp(0.0, 1.0);
+    let to_y = |m: f64| plot_bottom - (plot_bottom - TOP) * (m / y_max).clamp(0.0, 1.05);
+
+    let path = |values: &mut dyn Iterator<Item = f64>| -> String {
+        let mut d = String::with_capacity(SAMPLES * 14);
+        for (i, (x, y)) in xs.iter().zip(values).enumerate() {
+            let command = if i == 0 { 'M' } else { 'L' };
+            d.push_str(&format!("{command}{:.1} {:.1}", to_x(*x), to_y(y)));
+        }
+        d
+    };
+
+    let series = Limit::ALL
+        .iter()
+        .filter(|&&limit| evaluations.iter().any(|e| e.limits.get(limit) > 0.0))
+        .map(|&limit| {
+            let last = evaluations.last().map(|e| e.limits.get(limit)).unwrap_or(0.0);
+            Series {
+                limit,
+                path: path(&mut evaluations.iter().map(|e| e.limits.get(limit))),
+                label_x: plot_right - 4.0,
+                label_y: to_y(last) - 4.0,
+            }
+        })
+        .collect();
+    let envelope = path(&mut evaluations.iter().map(|e| e.limit_m));
+
+    let (x_ticks, x_unit) = ticks(x_max, units, to_x);
+    let (y_ticks, y_unit) = {
+        let (name, per) = axis_unit(y_wanted, units);
+        let mut out = Vec::new();
+        let mut v = 0.0;
+        while v <= y_max * (1.0 + 1e-9) && out.len() < 20 {
+            out.push(Tick {
+                at: to_y(v),
+                label: significant(v / per),
+            });
+            v += y_step;
+        }
+        (out, name)
+    };
+
+    let mut x_markers = vec![Marker {
+        kind: "current",
+        at: to_x(sweep.current()),
+        label: "now".to_string(),
+    }];
+    if axis == Axis::Height && COMMON_HEIGHT_CAP_M <= x_max {
+        x_markers.push(Marker {
+            kind: "cap",
+            at: to_x(COMMON_HEIGHT_CAP_M),
+            label: match units {
+                Units::Metric => "120 m".to_string(),
+                Units::Imperial => "400 ft".to_string(),
+            },
+        });
+    }
+    for &c in crossings.iter().filter(|&&c| c > 0.0 && c <= x_max) {
+        x_markers.push(Marker {
+            kind: "crossover",
+            at: to_x(c),
+            label: "crossover".to_string(),
+        });
+    }
+    if let Some(r) = reach_m.filter(|&r| r <= x_max) {
+        x_markers.push(Marker {
+            kind: "reach",
+            at: to_x(r),
+            label: "greatest".to_string(),
+        });
+    }
+    let y_markers = need_m
+        .map(|n| {
+            vec![Marker {
+                kind: "need",
+                at: to_y(n),
+                label: "need".to_string(),
+            }]
+        })
+        .unwrap_or_default();
+
+    Chart {
+        plot_left: LEFT,
+        plot_right,
+        plot_top: TOP,
+        plot_bottom,
+        x_title: format!("{} ({x_unit})", capitalise(axis.noun())),
+        y_title: format!("Smallest detail ({y_unit})"),
+        series,
+        envelope,
+        x_ticks,
+        y_ticks,
+        x_markers,
+        y_markers,
+        x_max_m: x_max,
+    }
+}
+
+fn capitalise(text: &str) -> String {
+    let mut chars = text.chars();
+    match chars.next() {
+        Some(c) => c.to_uppercase().chain(chars).collect(),
+        None => String::new(),
+    }
+}

@@ -43,7 +43,7 @@ pub const TABLE_POINTS: usize = 200;
 const BISECTIONS: usize = 60;
 
 /// A family of setups along one axis, with the limits tabulated on a log grid.
-#[derive(Clone, Debug)]
+#[derive(Clone, Debug, PartialEq)]
 pub struct Sweep {
     pub axis: Axis,
     base: Setup,
@@ -66,7 +66,8 @@ impl Sweep {
         let ratio = (hi / lo).ln();
         sweep.table = (0..TABLE_POINTS)
             .map(|i| {
-                let x = lo * (ratio * i as f64 / (TABLE_POINTS - 1) as f64).exp();
+                // exp(ln(hi/lo)) can round above hi/lo; clamp so the table stays in the domain.
+                let x = (lo * (ratio * i as f64 / (TABLE_POINTS - 1) as f64).exp()).clamp(lo, hi);
                 (x, evaluate(&sweep.setup_at(x)))
             })
             .collect();

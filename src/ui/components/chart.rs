@@ -1,0 +1,79 @@
+//! The chart of the four limits and the governing envelope against height or ground distance.
+
+use crate::core::chart::{self, HEIGHT, WIDTH};
+use crate::core::engine::Limit;
+use crate::ui::state::State;
+use std::rc::Rc;
+use yew::prelude::*;
+
+/// Properties of the chart.
+#[derive(Properties, PartialEq, Clone)]
+pub struct ChartProps {
+    pub state: Rc<State>,
+}
+
+/// Line style per limit: told apart by dash pattern and label, not by colour alone.
+fn dash(limit: Limit) -> &'static str {
+    match limit {
+        Limit::Sampling => "none",
+        Limit::Diffraction => "8 4",
+        Limit::Turbulence => "2 4",
+        Limit::Motion => "12 4 2 4",
+    }
+}
+
+/// The chart panel.
+#[function_component(LimitsChart)]
+pub fn limits_chart(props: &ChartProps) -> Html {
+    let plan = &props.state.plan;
+    let report = &plan.report;
+    let crossings: Vec<f64> = report.envelope_changes.iter().map(|c| c.position_m).collect();
+    let c = chart::build(&plan.sweep, report.need_m, report.reach_m, &crossings, plan.scenario.units);
+    let vb = format!("0 0 {WIDTH} {HEIGHT}");
+    let title = format!("The four limits against {}", plan.sweep.axis.noun());
+    html! {
+        <section class="panel" id="chart" aria-labelledby="chart-title">
+            <h2 id="chart-title">{ title.clone() }</h2>
+            <svg class="chart" viewBox={vb} role="img" aria-label={format!("{title}; the thick line is the governing envelope")} data-x-max={c.x_max_m.to_string()}>
+                <rect class="plot-bg" x={c.plot_left.to_string()} y={c.plot_top.to_string()} width={(c.plot_right - c.plot_left).to_string()} height={(c.plot_bottom - c.plot_top).to_string()} />
+                { for c.y_ticks.iter().map(|t| html! {
+                    <g class="tick">
+                        <line x1={c.plot_left.to_string()} x2={c.plot_right.to_string()} y1={t.at.to_string()} y2={t.at.to_string()} />
+                        <text x={(c.plot_left - 6.0).to_string()} y={(t.at + 4.0).to_string()} text-anchor="end">{ t.label.clone() }</text>
+                    </g>
+                }) }
+                { for c.x_ticks.iter().map(|t| html! {
+                    <g class="tick">
+                        <line x1={t.at.to_string()} x2={t.at.to_string()} y1={c.plot_top.to_string()} y2={c.plot_bottom.to_string()} />
+                        <text x={t.at.to_string()} y={(c.plot_bottom + 16.0).to_string()} text-anchor="middle">{ t.label.clone() }</text>
+                    </g>
+                }) }
+                <text class="axis-title" x={((c.plot_left + c.plot_right) / 2.0).to_string()} y={(HEIGHT - 8.0).to_string()} text-anchor="middle">{ c.x_title.clone() }</text>
+                <text class="axis-title" transform={format!("translate(14 {}) rotate(-90)", (c.plot_top + c.plot_bottom) / 2.0)} text-anchor="middle">{ c.y_title.clone() }</text>
+                <path class="envelope" d={c.envelope.clone()} />
+                { for c.series.iter().map(|s| html! {
+                    <g class={classes!("series", s.limit.key())}>
+                        <path d={s.path.clone()} stroke-dasharray={dash(s.limit)} />
+                        <text x={s.label_x.to_string()} y={s.label_y.to_string()} text-anchor="end">{ s.limit.key() }</text>
+                    </g>
+                }) }
+                { for c.x_markers.iter().map(|m| html! {
+                    <g class={classes!("marker", m.kind)} data-marker={m.kind}>
+                        <line x1={m.at.to_string()} x2={m.at.to_string()} y1={c.plot_top.to_string()} y2={c.plot_bottom.to_string()} />
+                        <text x={(m.at + 3.0).to_string()} y={(c.plot_top + 12.0).to_string()}>{ m.label.clone() }</text>
+                    </g>
+                }) }
+                { for c.y_markers.iter().map(|m| html! {
+                    <g class={classes!("marker", m.kind)} data-marker={m.kind}>
+                        <line x1={c.plot_left.to_string()} x2={c.plot_right.to_string()} y1={m.at.to_string()} y2={m.at.to_string()} />
+                        <text x={(c.plot_left + 4.0).to_string()} y={(m.at - 4.0).to_string()}>{ m.label.clone() }</text>
+                    </g>
+                }) }
+            </svg>
+            <p class="legend">
+                { "Solid: sampling · long dashes: diffraction · dots: turbulence · dash-dot: motion · thick line: the governing envelope. Vertical lines: the current " }
+                { plan.sweep.axis.noun() }{ ", the 120 m (400 ft) height many rules cap drones at, where the governing limit changes, and the greatest " }{ plan.sweep.axis.noun() }{ " meeting the need." }
+            </p>
+        </section>
+    }
+}

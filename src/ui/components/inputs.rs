@@ -1,0 +1,300 @@
+//! The input groups, in the order the trade thinks: camera, lens, band, geometry, air, motion,
+//! what is needed, and the survey area.
+
+use super::field::{Choice, NumberField};
+use crate::core::demo::{BANDS, SENSOR_FORMATS};
+use crate::core::format;
+use crate::core::scenario::{format_number, Units};
+use crate::ui::state::{Action, State};
+use std::rc::Rc;
+use yew::prelude::*;
+
+/// Properties shared by the input groups.
+#[derive(Properties, PartialEq, Clone)]
+pub struct InputsProps {
+    pub state: Rc<State>,
+    pub dispatch: Callback<Action>,
+}
+
+/// A numeric field for `key`, with an optional hint.
+fn field(props: &InputsProps, key: &'static str, hint: Option<String>) -> Html {
+    let on_input = props.dispatch.reform(|(k, v): (String, String)| Action::Set(vec![(k, v)]));
+    html! {
+        <NumberField key_name={key} value={props.state.text(key)}
+            error={props.state.error(key).map(AttrValue::from)}
+            hint={hint.map(AttrValue::from)} {on_input} />
+    }
+}
+
+/// The value of a length key in the other unit system, for a hint under its field.
+fn length_hint(props: &InputsProps, key: &str) -> Option<String> {
+    let units = props.state.plan.scenario.units;
+    if units != Units::Imperial || props.state.error(key).is_some() {
+        return None;
+    }
+    let metres: f64 = props.state.text(key).trim().parse().ok()?;
+    Some(format!("= {}", format::length(metres, units)))
+}
+
+/// Options for a select from (value, label) pairs.
+fn options(items: impl IntoIterator<Item = (String, String)>) -> Vec<(AttrValue, AttrValue)> {
+    items.into_iter().map(|(v, l)| (AttrValue::from(v), AttrValue::from(l))).collect()
+}
+
+/// Whether the raw text of `key` reads as `value`.
+fn reads_as(state: &State, key: &str, value: f64) -> bool {
+    state
+        .text(key)
+        .trim()
+        .parse::<f64>()
+        .map(|v| (v - value).abs() <= 1e-9 * value.abs().max(1e-30))
+        .unwrap_or(false)
+}
+
+/// Camera: a generic sensor format or custom sensor size and pixel count.
+#[function_component(CameraGroup)]
+pub fn camera_group(props: &InputsProps) -> Html {
+    let state = &props.state;
+    let selected = SENSOR_FORMATS
+        .iter()
+        .find(|f| {
+            reads_as(state, "sw", f.width_mm)
+                && reads_as(state, "sh", f.height_mm)
+                && reads_as(state, "cols", f64::from(f.cols))
+                && reads_as(state, "rows", f64::from(f.rows))
+        })
+        .map(|f| f.id)
+        .unwrap_or("custom");
+    let on_change = props.dispatch.reform(|id: String| {
+        match SENSOR_FORMATS.iter().find(|f| f.id == id) {
+            Some(f) => Action::Set(vec![
+                ("sw".into(), format_number(f.width_mm)),
+                ("sh".into(), format_number(f.height_mm)),
+                ("cols".into(), f.cols.to_string()),
+                ("rows".into(), f.rows.to_string()),
+            ]),
+            None => Action::Set(Vec::new()),
+        }
+    });
+    let mut items: Vec<(String, String)> = SENSOR_FORMATS.iter().map(|f| (f.id.to_string(), f.label.to_string())).collect();
+    items.push(("custom".into(), "Custom sensor".into()));
+    let pitch_um = state.plan.report.pitch_m * 1e6;
+    html! {
+        <fieldset class="group" id="group-camera">
+            <legend>{ "Camera" }</legend>
+            <Choice id="camera-preset" label="Sensor format" options={options(items)} selected={selected} {on_change} />
+            <div class="pair">
+                { field(props, "sw", None) }
+                { field(props, "sh", None) }
+            </div>
+            <div class="pair">
+                { field(props, "cols", None) }
+                { field(props, "rows", None) }
+            </div>
+            <p class="derived">{ "Pixel pitch " }<span data-key="pitch_m" data-si={state.plan.report.pitch_m.to_string()}>{ format!("{} µm", format::significant(pitch_um)) }</span></p>
+        </fieldset>
+    }
+}
+
+/// Lens: focal length and f-number.
+#[function_component(LensGroup)]
+pub fn lens_group(props: &InputsProps) -> Html {
+    let aperture = props.state.plan.report.aperture_m;
+    html! {
+        <fieldset class="group" id="group-lens">
+            <legend>{ "Lens" }</legend>
+            <div class="pair">
+                { field(props, "focal", None) }
+                { field(props, "fnum", None) }
+            </div>
+            <p class="derived">{ "Aperture diameter " }<span data-key="aperture_m" data-si={aperture.to_string()}>{ format!("{} mm", format::significant(aperture * 1000.0)) }</span></p>
+        </fieldset>
+    }
+}
+
+/// Band: a named band or a wavelength.
+#[function_component(BandGroup)]
+pub fn band_group(props: &InputsProps) -> Html {
+    let state = &props.state;
+    let selected = BANDS.iter().find(|b| reads_as(state, "wl", b.wavelength_nm)).map(|b| b.id).unwrap_or("custom");
+    let on_change = props.dispatch.reform(|id: String| match BANDS.iter().find(|b| b.id == id) {
+        Some(b) => Action::set("wl", format_number(b.wavelength_nm)),
+        None => Action::Set(Vec::new()),
+    });
+    let mut items: Vec<(String, String)> = BANDS.iter().map(|b| (b.id.to_string(), b.label.to_string())).collect();
+    items.push(("custom".into(), "Other wavelength".into()));
+    html! {
+        <fieldset class="group" id="group-band">
+            <legend>{ "Band" }</legend>
+            <Choice id="band-preset" label="Band" options={options(items)} selected={selected} {on_change} />
+            { field(props, "wl", None) }
+        </fieldset>
+    }
+}
+
+/// Geometry: height, and straight down, tilted, or a target at a ground distance.
+#[function_component(GeometryGroup)]
+pub fn geometry_group(props: &InputsProps) -> Html {
+    let state = &props.state;
+    let mode = if state.raw.get("tilt").is_some() {
+        "tilt"
+    } else if state.raw.get("gd").map(|g| g.trim() != "0").unwrap_or(false) {
+        "gd"
+    } else {
+        "down"
+    };
+    let on_change = props.dispatch.reform(|mode: String| match mode.as_str() {
+        "tilt" => Action::SetAndRemove(vec![("tilt".into(), "30".into())], vec!["gd".into()]),
+        "gd" => Action::SetAndRemove(vec![("gd".into(), "500".into())], vec!["tilt".into()]),
+        _ => Action::SetAndRemove(vec![("gd".into(), "0".into())], vec!["tilt".into()]),
+    });
+    let items = vec![
+        ("down".to_string(), "Looking straight down".to_string()),
+        ("tilt".to_string(), "Tilted from straight down".to_string()),
+        ("gd".to_string(), "Target at a ground distance (mast, vehicle)".to_string()),
+    ];
+    let report = &state.plan.report;
+    let units = state.plan.scenario.units;
+    html! {
+        <fieldset class="group" id="group-geometry">
+            <legend>{ "Geometry" }</legend>
+            { field(props, "h", length_hint(props, "h")) }
+            <Choice id="geometry-mode" label="View" options={options(items)} selected={mode} {on_change} />
+            if mode == "tilt" { { field(props, "tilt", None) } }
+            if mode == "gd" { { field(props, "gd", length_hint(props, "gd")) } }
+            <p class="derived">
+                { "Slant range " }<span data-key="slant_range_m" data-si={report.slant_range_m.to_string()}>{ format::length(report.slant_range_m, units) }</span>
+                { ", look angle " }<span data-key="look_angle_deg" data-si={report.look_angle_deg.to_string()}>{ format!("{}°", format::significant(report.look_angle_deg)) }</span>
+            </p>
+        </fieldset>
+    }
+}
+
+/// The air presets in plain words: (id, label, air, cn2, cexp).
+const AIR_PRESETS: &[(&str, &str, &str, &str, &str)] = &[
+    ("none", "Leave turbulence out", "none", "", ""),
+    ("calm", "Calm night or overcast: weak turbulence", "power", "1e-15", "-0.667"),
+    ("mild", "Mild day: moderate turbulence", "power", "1e-14", "-1.333"),
+    ("sunny", "Sunny day: strong turbulence", "power", "1e-13", "-1.333"),
+    ("hot", "Sunny day over hot ground (tarmac, sand, roofs)", "power", "1e-12", "-1.333"),
+    ("measured", "Measured Cn² near the ground (enter it)", "power", "", ""),
+    ("hv57", "Standard model: Hufnagel–Valley 5/7", "hv57", "", ""),
+    ("slc-day", "Standard model: SLC day", "slc-day", "", ""),
+    ("slc-night", "Standard model: SLC night", "slc-night", "", ""),
+];
+
+/// Air: the turbulence along the path.
+#[function_component(AirGroup)]
+pub fn air_group(props: &InputsProps) -> Html {
+    let state = &props.state;
+    let air = state.text("air");
+    let air = if air.is_empty() { "none".to_string() } else { air };
+    let selected = AIR_PRESETS
+        .iter()
+        .find(|(_, _, a, cn2, cexp)| {
+            *a == air
+                && (cn2.is_empty() || (reads_as(state, "cn2", cn2.parse().unwrap_or(0.0)) && reads_as(state, "cexp", cexp.parse().unwrap_or(0.0))))
+                && !(*a == "power" && cn2.is_empty())
+        })
+        .map(|p| p.0)
+        .unwrap_or(if air == "power" { "measured" } else { "none" });
+    let on_change = props.dispatch.reform(|id: String| {
+        let Some((_, _, air, cn2, cexp)) = AIR_PRESETS.iter().find(|p| p.0 == id) else {
+            return Action::Set(Vec::new());
+        };
+        let mut pairs = vec![("air".to_string(), air.to_string())];
+        if !cn2.is_empty() {
+            pairs.push(("cn2".into(), cn2.to_string()));
+            pairs.push(("cexp".into(), cexp.to_string()));
+        }
+        Action::Set(pairs)
+    });
+    let items = AIR_PRESETS.iter().map(|p| (p.0.to_string(), p.1.to_string()));
+    let r0 = state.plan.report.r0_m;
+    html! {
+        <fieldset class="group" id="group-air">
+            <legend>{ "Air" }</legend>
+            <Choice id="air-preset" label="Turbulence" options={options(items)} selected={selected} {on_change} />
+            if air == "power" {
+                <div class="pair">
+                    { field(props, "cn2", None) }
+                    { field(props, "cexp", Some("−4/3 sunny day, −2/3 night".to_string())) }
+                </div>
+            }
+            <p class="derived">{ "Fried parameter r0 of the path " }
+                <span data-key="r0_m" data-si={r0.map(|r| r.to_string()).unwrap_or_default()}>
+                    { r0.map(|r| format::length(r, state.plan.scenario.units)).unwrap_or_else(|| "none (no turbulence)".to_string()) }
+                </span>
+            </p>
+        </fieldset>
+    }
+}
+
+/// Motion: ground speed and exposure time.
+#[function_component(MotionGroup)]
+pub fn motion_group(props: &InputsProps) -> Html {
+    let units = props.state.plan.scenario.units;
+    let speed_hint = props
+        .state
+        .text("speed")
+        .trim()
+        .parse::<f64>()
+        .ok()
+        .filter(|_| props.state.error("speed").is_none())
+        .map(|v| format!("= {}", format::speed(v, units)));
+    html! {
+        <fieldset class="group" id="group-motion">
+            <legend>{ "Motion" }</legend>
+            <div class="pair">
+                { field(props, "speed", speed_hint) }
+                { field(props, "shutter", Some("1/1000 is accepted".to_string())) }
+            </div>
+        </fieldset>
+    }
+}
+
+/// What is needed: a resolution on the ground, and a target to judge.
+#[function_component(NeedGroup)]
+pub fn need_group(props: &InputsProps) -> Html {
+    html! {
+        <fieldset class="group" id="group-need">
+            <legend>{ "What you need to see" }</legend>
+            <div class="pair">
+                { field(props, "need", length_hint(props, "need")) }
+                { field(props, "tdim", Some("0.75 m is used for a person".to_string())) }
+            </div>
+        </fieldset>
+    }
+}
+
+/// The survey area and the aircraft's limits.
+#[function_component(SurveyGroup)]
+pub fn survey_group(props: &InputsProps) -> Html {
+    html! {
+        <fieldset class="group" id="group-survey">
+            <legend>{ "Survey area and aircraft" }</legend>
+            <div class="pair">
+                { field(props, "aw", length_hint(props, "aw")) }
+                { field(props, "al", length_hint(props, "al")) }
+            </div>
+            <div class="pair">
+                { field(props, "fo", None) }
+                { field(props, "so", None) }
+            </div>
+            <div class="pair">
+                { field(props, "trig", None) }
+                { field(props, "blur", None) }
+            </div>
+            <div class="pair">
+                { field(props, "endur", None) }
+                { field(props, "turn", None) }
+            </div>
+            { field(props, "mb", None) }
+            <div class="pair">
+                { field(props, "lat", None) }
+                { field(props, "lon", None) }
+            </div>
+            { field(props, "hdg", None) }
+        </fieldset>
+    }
+}

@@ -1,0 +1,10 @@
+//! One component per file; each reads the state it is given and dispatches actions.
+
+pub mod cautions;
+pub mod chart;
+pub mod field;
+pub mod inputs;
+pub mod results;
+pub mod solve;
+pub mod survey;
+pub mod target;

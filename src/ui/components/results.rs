@@ -1,0 +1,123 @@
+//! The four limits side by side, the governing one in words, and what to change.
+
+use crate::core::engine::Limit;
+use crate::core::format;
+use crate::core::report::inputs_of;
+use crate::core::scenario::number_spec;
+use crate::ui::state::State;
+use std::rc::Rc;
+use yew::prelude::*;
+
+/// Properties of the results panel.
+#[derive(Properties, PartialEq, Clone)]
+pub struct ResultsProps {
+    pub state: Rc<State>,
+}
+
+/// The report field of each limit.
+pub fn field_of(limit: Limit) -> &'static str {
+    match limit {
+        Limit::Sampling => "gsd_m",
+        Limit::Diffraction => "diffraction_m",
+        Limit::Turbulence => "turbulence_m",
+        Limit::Motion => "motion_m",
+    }
+}
+
+/// Labels of the invalid inputs that a report field depends on.
+pub fn invalid_inputs(state: &State, field: &str) -> Vec<&'static str> {
+    inputs_of(field)
+        .iter()
+        .filter(|k| state.error(k).is_some())
+        .map(|k| number_spec(k).map(|s| s.label).unwrap_or(k))
+        .collect()
+}
+
+/// A displayed value tagged with its report field and SI value.
+pub fn value(key: &'static str, si: f64, text: String) -> Html {
+    html! { <span class="value" data-key={key} data-si={si.to_string()}>{ text }</span> }
+}
+
+fn detail(limit: Limit, state: &State) -> String {
+    let report = &state.plan.report;
+    let units = state.plan.scenario.units;
+    match limit {
+        Limit::Sampling if report.look_angle_deg > 1.0 => {
+            format!("on the ground along the view: {}", format::length(report.gsd_ground_m, units))
+        }
+        Limit::Sampling => "one pixel's footprint".to_string(),
+        Limit::Diffraction => format!(
+            "{} µrad at f/{}",
+            format::significant(report.rayleigh_rad * 1e6),
+            format::significant(state.plan.scenario.f_number)
+        ),
+        Limit::Turbulence => match report.r0_m {
+            Some(r0) => format!("r0 = {} along the path", format::length(r0, units)),
+            None => "no turbulence in this scenario".to_string(),
+        },
+        Limit::Motion => format!("{} pixels of smear", format::significant(report.motion_px)),
+    }
+}
+
+/// The results panel.
+#[function_component(Results)]
+pub fn results(props: &ResultsProps) -> Html {
+    let state = &props.state;
+    let report = &state.plan.report;
+    let units = state.plan.scenario.units;
+    let governing = report.governing;
+    let runner_up = report.runner_up;
+    let all_invalid = invalid_inputs(state, "limit_m");
+    html! {
+        <section class="panel" id="results" aria-labelledby="results-title">
+            <h2 id="results-title">{ "What the images will resolve" }</h2>
+            if !all_invalid.is_empty() {
+                <p class="stale-note" role="status">{ format!("Some inputs are invalid ({}); their defaults are used until you fix them, so results marked “uses a default” may be wrong.", all_invalid.join(", ")) }</p>
+            }
+            <p class="governing" data-key="governing" data-si={governing.key()}>
+                <strong>{ format!("{} governs: ", governing.title()) }</strong>
+                { value("limit_m", report.limit_m, format::length(report.limit_m, units)) }
+                if report.governing_margin > 1.0 {
+                    { format!(", {} the next limit ({}).", format::times(report.governing_margin), runner_up.title().to_lowercase()) }
+                } else {
+                    { format!(", level with {}.", runner_up.title().to_lowercase()) }
+                }
+            </p>
+            <p class="advice" data-key="advice">{ format!("To see finer detail: {}", report.advice) }</p>
+            <div class="limits">
+                { for Limit::ALL.iter().map(|&limit| {
+                    let key = field_of(limit);
+                    let v = match limit {
+                        Limit::Sampling => report.gsd_m,
+                        Limit::Diffraction => report.diffraction_m,
+                        Limit::Turbulence => report.turbulence_m,
+                        Limit::Motion => report.motion_m,
+                    };
+                    let invalid = invalid_inputs(state, key);
+                    let is_gov = limit == governing;
+                    let share = if report.limit_m > 0.0 { v / report.limit_m } else { 0.0 };
+                    html! {
+                        <article class={classes!("limit", is_gov.then_some("governs"), (!invalid.is_empty()).then_some("stale"))} data-limit={limit.key()}>
+                            <h3>{ limit.title() }</h3>
+                            <p class="big">{ value(key, v, format::length(v, units)) }</p>
+                            <p class="tag">{ if is_gov { "GOVERNS".to_string() } else { format!("{} of the governing limit", format::percent(share)) } }</p>
+                            <p class="detail">{ detail(limit, state) }</p>
+                            if !invalid.is_empty() {
+                                <p class="stale-tag">{ format!("uses a default: {}", invalid.join(", ")) }</p>
+                            }
+                            <svg class="bar" viewBox="0 0 100 6" preserveAspectRatio="none" aria-hidden="true"><rect class="track" width="100" height="6" /><rect class="fill" width={format!("{:.1}", (share * 100.0).clamp(0.0, 100.0))} height="6" /></svg>
+                        </article>
+                    }
+                }) }
+            </div>
+            <dl class="figures">
+                <dt>{ "Sampling ratio Q = λN/p" }</dt>
+                <dd>{ value("q", report.q, format::significant(report.q)) }{ format!(" — {}", report.sampling_regime) }</dd>
+                <dt>{ "Ground-plane GSD along the view" }</dt>
+                <dd>{ value("gsd_ground_m", report.gsd_ground_m, format::length(report.gsd_ground_m, units)) }</dd>
+                <dt>{ "Motion smear" }</dt>
+                <dd>{ value("motion_px", report.motion_px, format!("{} px", format::significant(report.motion_px))) }</dd>
+            </dl>
+        </section>
+    }
+}

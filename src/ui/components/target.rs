@@ -1,0 +1,46 @@
+//! What a target will look like: Johnson cycles and the chance of each task.
+
+use crate::core::format;
+use crate::ui::components::results::value;
+use crate::ui::state::State;
+use std::rc::Rc;
+use yew::prelude::*;
+
+/// Properties of the target panel.
+#[derive(Properties, PartialEq, Clone)]
+pub struct TargetProps {
+    pub state: Rc<State>,
+}
+
+/// The target panel.
+#[function_component(TargetPanel)]
+pub fn target_panel(props: &TargetProps) -> Html {
+    let report = &props.state.plan.report;
+    let units = props.state.plan.scenario.units;
+    let (Some(size), Some(cycles)) = (report.target_m, report.target_cycles) else {
+        return html! {
+            <section class="panel" id="target"><h2>{ "What a target will look like" }</h2>
+            <p>{ "Enter a target's critical dimension (0.75 m for a person, about 2.3 m for a car) to see the chance of detecting, recognising and identifying it." }</p></section>
+        };
+    };
+    html! {
+        <section class="panel" id="target" aria-labelledby="target-title">
+            <h2 id="target-title">{ "What a target will look like" }</h2>
+            <p>{ format!("A target {} across spans ", format::length(size, units)) }
+                { value("target_cycles", cycles, format::significant(cycles)) }
+                { " resolvable cycles (Johnson criteria, 1958)." }</p>
+            <table class="chances">
+                <thead><tr><th scope="col">{ "Task" }</th><th scope="col">{ "Cycles for 50 %" }</th><th scope="col">{ "Chance" }</th></tr></thead>
+                <tbody>
+                { for report.target_chances.iter().map(|c| html! {
+                    <tr data-task={format!("{:?}", c.task).to_lowercase()}>
+                        <th scope="row">{ format!("{:?}", c.task) }<br/><small>{ c.task.describe() }</small></th>
+                        <td>{ format::significant(c.cycles_needed) }</td>
+                        <td data-si={c.probability.to_string()}>{ format::percent(c.probability) }</td>
+                    </tr>
+                }) }
+                </tbody>
+            </table>
+        </section>
+    }
+}
