@@ -28,6 +28,18 @@ fn export(scenario: &Scenario) -> Value {
     serde_json::from_str(&text).expect("the export is JSON")
 }
 
+/// The demo camera over an area of `width` × `length` m whose first corner is at `lat`, `lon`.
+fn field_at(lat: f64, lon: f64, heading: f64, width: f64, length: f64) -> Scenario {
+    Scenario {
+        latitude_deg: Some(lat),
+        longitude_deg: Some(lon),
+        heading_deg: heading,
+        area_width_m: Some(width),
+        area_length_m: Some(length),
+        ..pasture_survey()
+    }
+}
+
 /// The [longitude, latitude] positions of a GeoJSON coordinate array.
 fn positions(coordinates: &Value) -> Vec<[f64; 2]> {
     coordinates
@@ -143,14 +155,7 @@ fn corners_measure_the_area_on_the_ellipsoid() {
     ] {
         for heading in [0.0, 37.0, 90.0, 180.0, 271.5, 359.9] {
             for (width, length) in [(400.0, 600.0), (2000.0, 3000.0), (1.0, 1.0)] {
-                let s = Scenario {
-                    latitude_deg: Some(lat),
-                    longitude_deg: Some(lon),
-                    heading_deg: heading,
-                    area_width_m: Some(width),
-                    area_length_m: Some(length),
-                    ..pasture_survey()
-                };
+                let s = field_at(lat, lon, heading, width, length);
                 let ring = area_ring(&export(&s));
                 let case = format!("{lat},{lon} heading {heading}, {width} × {length}");
                 assert!(signed_area_deg2(&ring) > 0.0, "{case}: clockwise");
@@ -353,13 +358,8 @@ proptest! {
         h in prop_oneof![Just(80.0), 20.0f64..2000.0],
     ) {
         let s = Scenario {
-            latitude_deg: Some(lat),
-            longitude_deg: Some(lon),
-            heading_deg: heading,
-            area_width_m: Some(width),
-            area_length_m: Some(length),
             height_m: h,
-            ..pasture_survey()
+            ..field_at(lat, lon, heading, width, length)
         };
         let p = plan(&s);
         match survey_geojson_checked(&s, &p) {
