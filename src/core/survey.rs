@@ -477,16 +477,22 @@ pub fn flies_forward(number: u64) -> bool {
 /// first corner (where line 1 starts).
 #[derive(Clone, Copy, Debug, PartialEq, Serialize)]
 pub struct Point {
+    /// Across the lines, metres.
     pub x: f64,
+    /// Along the lines, metres.
     pub y: f64,
 }
 
 /// An axis-aligned rectangle in local metres: its corner of least x and y, and its size.
 #[derive(Clone, Copy, Debug, PartialEq, Serialize)]
 pub struct Rect {
+    /// Least x, metres.
     pub x: f64,
+    /// Least y, metres.
     pub y: f64,
+    /// Extent in x (across the lines), metres.
     pub width: f64,
+    /// Extent in y (along the lines), metres.
     pub height: f64,
 }
 
@@ -521,7 +527,9 @@ impl Rect {
 pub struct LayoutLine {
     /// Counted from 1 in flying order.
     pub number: u64,
+    /// Where the line is entered.
     pub start: Point,
+    /// Where the line is left.
     pub end: Point,
     /// True when flown along the heading (+y), false when flown back.
     pub forward: bool,
@@ -536,6 +544,7 @@ pub struct LayoutFootprint {
     pub photo: u64,
     /// The point below the camera.
     pub centre: Point,
+    /// The ground the photo covers: footprint across × footprint along, centred on `centre`.
     pub rect: Rect,
 }
 
