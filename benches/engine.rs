@@ -16,9 +16,13 @@ fn engine(c: &mut Criterion) {
     let mut hv = demo::pasture_survey();
     hv.air = sharpfield::core::scenario::AirModel::Hv57;
     let hv_setup = hv.setup();
-    c.bench_function("evaluate (Hufnagel-Valley air)", |b| b.iter(|| evaluate(black_box(&hv_setup))));
+    c.bench_function("evaluate (Hufnagel-Valley air)", |b| {
+        b.iter(|| evaluate(black_box(&hv_setup)))
+    });
 
-    c.bench_function("sweep of 200 heights", |b| b.iter(|| Sweep::new(black_box(setup), Axis::Height)));
+    c.bench_function("sweep of 200 heights", |b| {
+        b.iter(|| Sweep::new(black_box(setup), Axis::Height))
+    });
 
     let mast = demo::fence_mast();
     c.bench_function("whole plan (fence-line mast demo)", |b| {

@@ -34,7 +34,11 @@ pub fn cautions(inputs: CautionInputs) -> Vec<Caution> {
             .to_string(),
     }];
     if inputs.height_m > COMMON_HEIGHT_CAP_M {
-        let aircraft = if inputs.airborne { "" } else { " (if this camera is carried by an aircraft)" };
+        let aircraft = if inputs.airborne {
+            ""
+        } else {
+            " (if this camera is carried by an aircraft)"
+        };
         out.push(Caution {
             code: "height",
             text: format!(

@@ -92,9 +92,12 @@ pub fn area(square_metres: f64, units: Units) -> String {
         Units::Metric if square_metres < 1e6 => format!("{} ha", significant(square_metres / 1e4)),
         Units::Metric => format!("{} km²", significant(square_metres / 1e6)),
         Units::Imperial => {
-            let acres = square_metres / 4046.856_422_4;
+            let acres = square_metres / 4_046.856_422_4;
             if acres < 1.0 {
-                format!("{} ft²", significant(square_metres / (METRES_PER_FOOT * METRES_PER_FOOT)))
+                format!(
+                    "{} ft²",
+                    significant(square_metres / (METRES_PER_FOOT * METRES_PER_FOOT))
+                )
             } else {
                 format!("{} acres", significant(acres))
             }

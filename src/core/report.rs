@@ -179,7 +179,8 @@ pub fn report_for_query(query: &str) -> Report {
 
 /// The report as one line of JSON.
 pub fn report_json(query: &str) -> String {
-    serde_json::to_string(&report_for_query(query)).unwrap_or_else(|e| format!("{{\"errors\":[{{\"key\":\"\",\"message\":\"{e}\"}}]}}"))
+    serde_json::to_string(&report_for_query(query))
+        .unwrap_or_else(|e| format!("{{\"errors\":[{{\"key\":\"\",\"message\":\"{e}\"}}]}}"))
 }
 
 /// The scenario keys a report field depends on, so the page can say which results an invalid

@@ -59,7 +59,11 @@ impl Sweep {
         let mut sweep = Sweep {
             axis,
             base,
-            look_angle_rad: if look_angle_rad.is_finite() { look_angle_rad } else { 0.0 },
+            look_angle_rad: if look_angle_rad.is_finite() {
+                look_angle_rad
+            } else {
+                0.0
+            },
             table: Vec::new(),
         };
         let (lo, hi) = axis.domain();
@@ -120,20 +124,37 @@ impl Sweep {
         let meets = |e: &Evaluation| e.limit_m <= need_m;
         let (first_x, first) = match self.table.first() {
             Some(point) => *point,
-            None => return Reach::Nowhere { forbidden_by: Limit::Sampling, best_m: 0.0 },
+            None => {
+                return Reach::Nowhere {
+                    forbidden_by: Limit::Sampling,
+                    best_m: 0.0,
+                }
+            }
         };
         match self.table.iter().rposition(|(_, e)| meets(e)) {
             None => {
                 // Motion does not depend on the geometry, so name it first when it alone is too large.
-                let forbidden_by = if first.limits.motion > need_m { Limit::Motion } else { first.governing };
+                let forbidden_by = if first.limits.motion > need_m {
+                    Limit::Motion
+                } else {
+                    first.governing
+                };
                 let _ = first_x;
-                Reach::Nowhere { forbidden_by, best_m: first.limit_m }
+                Reach::Nowhere {
+                    forbidden_by,
+                    best_m: first.limit_m,
+                }
             }
-            Some(i) if i + 1 == self.table.len() => Reach::Everywhere { up_to_m: self.table[i].0 },
+            Some(i) if i + 1 == self.table.len() => Reach::Everywhere {
+                up_to_m: self.table[i].0,
+            },
             Some(i) => {
                 let x = self.bisect(self.table[i].0, self.table[i + 1].0, meets);
                 let beyond = evaluate(&self.setup_at(x * (1.0 + 1e-6)));
-                Reach::UpTo { position_m: x, bound_by: beyond.governing }
+                Reach::UpTo {
+                    position_m: x,
+                    bound_by: beyond.governing,
+                }
             }
         }
     }
@@ -197,7 +218,11 @@ pub enum Reach {
 #[serde(tag = "kind", rename_all = "snake_case")]
 pub enum Crossing {
     /// They are equal at `position_m`.
-    At { position_m: f64, larger_below: Limit, larger_above: Limit },
+    At {
+        position_m: f64,
+        larger_below: Limit,
+        larger_above: Limit,
+    },
     /// They never cross in the domain; `larger` is the larger one throughout.
     Never { larger: Limit },
 }
@@ -233,23 +258,35 @@ pub enum FocalNeed {
 /// Closed form: GSD and the Rayleigh distance both scale as 1/f at a fixed f-number
 /// (resolution-model §1–§2), while seeing and motion do not depend on the lens.
 pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need_m: f64) -> FocalNeed {
-    if !(need_m > 0.0) {
-        return FocalNeed::Impossible { forbidden_by: evaluation.governing };
+    if need_m.is_nan() || need_m <= 0.0 {
+        return FocalNeed::Impossible {
+            forbidden_by: evaluation.governing,
+        };
     }
     let lens_free = [
         (Limit::Turbulence, evaluation.limits.turbulence),
         (Limit::Motion, evaluation.limits.motion),
     ];
-    if let Some((limit, _)) = lens_free.iter().filter(|(_, v)| *v > need_m).max_by(|a, b| a.1.total_cmp(&b.1)) {
+    if let Some((limit, _)) = lens_free
+        .iter()
+        .filter(|(_, v)| *v > need_m)
+        .max_by(|a, b| a.1.total_cmp(&b.1))
+    {
         return FocalNeed::Impossible { forbidden_by: *limit };
     }
     let range = evaluation.slant_range_m;
     let for_sampling = setup.pixel_pitch_m() * range / need_m;
     let for_diffraction = RAYLEIGH_FACTOR * setup.wavelength_m * setup.f_number * range / need_m;
     if for_sampling >= for_diffraction {
-        FocalNeed::AtLeast { focal_m: for_sampling, bound_by: Limit::Sampling }
+        FocalNeed::AtLeast {
+            focal_m: for_sampling,
+            bound_by: Limit::Sampling,
+        }
     } else {
-        FocalNeed::AtLeast { focal_m: for_diffraction, bound_by: Limit::Diffraction }
+        FocalNeed::AtLeast {
+            focal_m: for_diffraction,
+            bound_by: Limit::Diffraction,
+        }
     }
 }
 

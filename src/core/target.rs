@@ -18,7 +18,12 @@ pub enum Task {
 
 impl Task {
     /// All tasks, easiest first.
-    pub const ALL: [Task; 4] = [Task::Detection, Task::Orientation, Task::Recognition, Task::Identification];
+    pub const ALL: [Task; 4] = [
+        Task::Detection,
+        Task::Orientation,
+        Task::Recognition,
+        Task::Identification,
+    ];
 
     /// Johnson's cycles across the critical dimension for a 50 % chance (Johnson 1958).
     pub fn n50(self) -> f64 {
@@ -47,8 +52,11 @@ pub const PERSON_CRITICAL_DIMENSION_M: f64 = 0.75;
 
 /// Target transfer probability function P(N/N50).
 pub fn ttpf(cycles_ratio: f64) -> f64 {
-    if !(cycles_ratio > 0.0) || !cycles_ratio.is_finite() {
-        return if cycles_ratio == f64::INFINITY { 1.0 } else { 0.0 };
+    if cycles_ratio == f64::INFINITY {
+        return 1.0;
+    }
+    if cycles_ratio.is_nan() || cycles_ratio <= 0.0 {
+        return 0.0;
     }
     let e = 2.7 + 0.7 * cycles_ratio;
     let t = cycles_ratio.powf(e);

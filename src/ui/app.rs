@@ -7,7 +7,9 @@ use crate::ui::browser;
 use crate::ui::components::cautions::Cautions;
 use crate::ui::components::chart::LimitsChart;
 use crate::ui::components::field::Choice;
-use crate::ui::components::inputs::{AirGroup, BandGroup, CameraGroup, GeometryGroup, LensGroup, MotionGroup, NeedGroup, SurveyGroup};
+use crate::ui::components::inputs::{
+    AirGroup, BandGroup, CameraGroup, GeometryGroup, LensGroup, MotionGroup, NeedGroup, SurveyGroup,
+};
 use crate::ui::components::results::Results;
 use crate::ui::components::solve::SolvePanel;
 use crate::ui::components::survey::SurveyPanel;
@@ -34,7 +36,7 @@ pub fn app() -> Html {
     // The address always holds the current scenario, replaced in place while editing.
     {
         let raw = state.raw.clone();
-        use_effect_with(raw, |raw| browser::replace_location_query(raw));
+        use_effect_with(raw, browser::replace_location_query);
     }
 
     let snapshot: Rc<State> = Rc::new((*state).clone());
@@ -43,7 +45,12 @@ pub fn app() -> Html {
 
     let demos = demo::all();
     let demo_options: Vec<(AttrValue, AttrValue)> = std::iter::once(("".into(), "Open a demo…".into()))
-        .chain(demos.iter().enumerate().map(|(i, d)| (i.to_string().into(), d.name.clone().into())))
+        .chain(
+            demos
+                .iter()
+                .enumerate()
+                .map(|(i, d)| (i.to_string().into(), d.name.clone().into())),
+        )
         .collect();
     let on_demo = {
         let dispatch = dispatch.clone();
@@ -69,7 +76,10 @@ pub fn app() -> Html {
         let contrast = contrast.clone();
         Callback::from(move |_| {
             let next = !*contrast;
-            if let Some(root) = web_sys::window().and_then(|w| w.document()).and_then(|d| d.document_element()) {
+            if let Some(root) = web_sys::window()
+                .and_then(|w| w.document())
+                .and_then(|d| d.document_element())
+            {
                 let _ = root.set_attribute("data-theme", if next { "contrast" } else { "default" });
             }
             contrast.set(next);

@@ -28,7 +28,13 @@ pub fn limits_chart(props: &ChartProps) -> Html {
     let plan = &props.state.plan;
     let report = &plan.report;
     let crossings: Vec<f64> = report.envelope_changes.iter().map(|c| c.position_m).collect();
-    let c = chart::build(&plan.sweep, report.need_m, report.reach_m, &crossings, plan.scenario.units);
+    let c = chart::build(
+        &plan.sweep,
+        report.need_m,
+        report.reach_m,
+        &crossings,
+        plan.scenario.units,
+    );
     let vb = format!("0 0 {WIDTH} {HEIGHT}");
     let title = format!("The four limits against {}", plan.sweep.axis.noun());
     html! {

@@ -18,7 +18,9 @@ pub struct InputsProps {
 
 /// A numeric field for `key`, with an optional hint.
 fn field(props: &InputsProps, key: &'static str, hint: Option<String>) -> Html {
-    let on_input = props.dispatch.reform(|(k, v): (String, String)| Action::Set(vec![(k, v)]));
+    let on_input = props
+        .dispatch
+        .reform(|(k, v): (String, String)| Action::Set(vec![(k, v)]));
     html! {
         <NumberField key_name={key} value={props.state.text(key)}
             error={props.state.error(key).map(AttrValue::from)}
@@ -38,7 +40,10 @@ fn length_hint(props: &InputsProps, key: &str) -> Option<String> {
 
 /// Options for a select from (value, label) pairs.
 fn options(items: impl IntoIterator<Item = (String, String)>) -> Vec<(AttrValue, AttrValue)> {
-    items.into_iter().map(|(v, l)| (AttrValue::from(v), AttrValue::from(l))).collect()
+    items
+        .into_iter()
+        .map(|(v, l)| (AttrValue::from(v), AttrValue::from(l)))
+        .collect()
 }
 
 /// Whether the raw text of `key` reads as `value`.
@@ -65,8 +70,9 @@ pub fn camera_group(props: &InputsProps) -> Html {
         })
         .map(|f| f.id)
         .unwrap_or("custom");
-    let on_change = props.dispatch.reform(|id: String| {
-        match SENSOR_FORMATS.iter().find(|f| f.id == id) {
+    let on_change = props
+        .dispatch
+        .reform(|id: String| match SENSOR_FORMATS.iter().find(|f| f.id == id) {
             Some(f) => Action::Set(vec![
                 ("sw".into(), format_number(f.width_mm)),
                 ("sh".into(), format_number(f.height_mm)),
@@ -74,9 +80,11 @@ pub fn camera_group(props: &InputsProps) -> Html {
                 ("rows".into(), f.rows.to_string()),
             ]),
             None => Action::Set(Vec::new()),
-        }
-    });
-    let mut items: Vec<(String, String)> = SENSOR_FORMATS.iter().map(|f| (f.id.to_string(), f.label.to_string())).collect();
+        });
+    let mut items: Vec<(String, String)> = SENSOR_FORMATS
+        .iter()
+        .map(|f| (f.id.to_string(), f.label.to_string()))
+        .collect();
     items.push(("custom".into(), "Custom sensor".into()));
     let pitch_um = state.plan.report.pitch_m * 1e6;
     html! {
@@ -116,11 +124,17 @@ pub fn lens_group(props: &InputsProps) -> Html {
 #[function_component(BandGroup)]
 pub fn band_group(props: &InputsProps) -> Html {
     let state = &props.state;
-    let selected = BANDS.iter().find(|b| reads_as(state, "wl", b.wavelength_nm)).map(|b| b.id).unwrap_or("custom");
-    let on_change = props.dispatch.reform(|id: String| match BANDS.iter().find(|b| b.id == id) {
-        Some(b) => Action::set("wl", format_number(b.wavelength_nm)),
-        None => Action::Set(Vec::new()),
-    });
+    let selected = BANDS
+        .iter()
+        .find(|b| reads_as(state, "wl", b.wavelength_nm))
+        .map(|b| b.id)
+        .unwrap_or("custom");
+    let on_change = props
+        .dispatch
+        .reform(|id: String| match BANDS.iter().find(|b| b.id == id) {
+            Some(b) => Action::set("wl", format_number(b.wavelength_nm)),
+            None => Action::Set(Vec::new()),
+        });
     let mut items: Vec<(String, String)> = BANDS.iter().map(|b| (b.id.to_string(), b.label.to_string())).collect();
     items.push(("custom".into(), "Other wavelength".into()));
     html! {
@@ -151,7 +165,10 @@ pub fn geometry_group(props: &InputsProps) -> Html {
     let items = vec![
         ("down".to_string(), "Looking straight down".to_string()),
         ("tilt".to_string(), "Tilted from straight down".to_string()),
-        ("gd".to_string(), "Target at a ground distance (mast, vehicle)".to_string()),
+        (
+            "gd".to_string(),
+            "Target at a ground distance (mast, vehicle)".to_string(),
+        ),
     ];
     let report = &state.plan.report;
     let units = state.plan.scenario.units;
@@ -173,10 +190,22 @@ pub fn geometry_group(props: &InputsProps) -> Html {
 /// The air presets in plain words: (id, label, air, cn2, cexp).
 const AIR_PRESETS: &[(&str, &str, &str, &str, &str)] = &[
     ("none", "Leave turbulence out", "none", "", ""),
-    ("calm", "Calm night or overcast: weak turbulence", "power", "1e-15", "-0.667"),
+    (
+        "calm",
+        "Calm night or overcast: weak turbulence",
+        "power",
+        "1e-15",
+        "-0.667",
+    ),
     ("mild", "Mild day: moderate turbulence", "power", "1e-14", "-1.333"),
     ("sunny", "Sunny day: strong turbulence", "power", "1e-13", "-1.333"),
-    ("hot", "Sunny day over hot ground (tarmac, sand, roofs)", "power", "1e-12", "-1.333"),
+    (
+        "hot",
+        "Sunny day over hot ground (tarmac, sand, roofs)",
+        "power",
+        "1e-12",
+        "-1.333",
+    ),
     ("measured", "Measured Cn² near the ground (enter it)", "power", "", ""),
     ("hv57", "Standard model: Hufnagel–Valley 5/7", "hv57", "", ""),
     ("slc-day", "Standard model: SLC day", "slc-day", "", ""),
@@ -193,7 +222,9 @@ pub fn air_group(props: &InputsProps) -> Html {
         .iter()
         .find(|(_, _, a, cn2, cexp)| {
             *a == air
-                && (cn2.is_empty() || (reads_as(state, "cn2", cn2.parse().unwrap_or(0.0)) && reads_as(state, "cexp", cexp.parse().unwrap_or(0.0))))
+                && (cn2.is_empty()
+                    || (reads_as(state, "cn2", cn2.parse().unwrap_or(0.0))
+                        && reads_as(state, "cexp", cexp.parse().unwrap_or(0.0))))
                 && !(*a == "power" && cn2.is_empty())
         })
         .map(|p| p.0)

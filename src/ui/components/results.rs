@@ -43,7 +43,10 @@ fn detail(limit: Limit, state: &State) -> String {
     let units = state.plan.scenario.units;
     match limit {
         Limit::Sampling if report.look_angle_deg > 1.0 => {
-            format!("on the ground along the view: {}", format::length(report.gsd_ground_m, units))
+            format!(
+                "on the ground along the view: {}",
+                format::length(report.gsd_ground_m, units)
+            )
         }
         Limit::Sampling => "one pixel's footprint".to_string(),
         Limit::Diffraction => format!(

@@ -17,7 +17,11 @@ pub struct SolveProps {
 
 fn crossing_text(crossing: &Crossing, a: Limit, noun: &str, length: &dyn Fn(f64) -> String) -> String {
     match *crossing {
-        Crossing::At { position_m, larger_below, larger_above } => format!(
+        Crossing::At {
+            position_m,
+            larger_below,
+            larger_above,
+        } => format!(
             "{} and pixel sampling are equal at a {noun} of {}: below it {} is larger, above it {}.",
             a.title(),
             length(position_m),
@@ -65,7 +69,9 @@ pub fn solve_panel(props: &SolveProps) -> Html {
                 <p>{ focal_text }</p>
             </> }
         }
-        _ => html! { <p>{ "Enter a required resolution under “What you need to see” to get the greatest height or range and the lens that would do." }</p> },
+        _ => {
+            html! { <p>{ "Enter a required resolution under “What you need to see” to get the greatest height or range and the lens that would do." }</p> }
+        }
     };
     html! {
         <section class="panel" id="solve" aria-labelledby="solve-title">

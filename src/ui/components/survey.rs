@@ -1,6 +1,10 @@
-//! The survey panel: footprint and layout.
+//! The survey panel: footprint, overlaps, lines, photos, speed limits, flight time, the layout
+//! diagram and the GeoJSON export.
 
 use crate::core::format;
+use crate::core::geojson::survey_geojson_checked;
+use crate::core::survey::{layout, Layout};
+use crate::ui::browser;
 use crate::ui::components::results::value;
 use crate::ui::state::State;
 use std::rc::Rc;
@@ -12,19 +16,129 @@ pub struct SurveyProps {
     pub state: Rc<State>,
 }
 
+/// A count tagged with its report field.
+fn count(key: &'static str, n: Option<u64>) -> Html {
+    match n {
+        Some(n) => html! { <span class="value" data-key={key} data-si={n.to_string()}>{ n.to_string() }</span> },
+        None => html! { <span class="value missing" data-key={key} data-si="">{ "—" }</span> },
+    }
+}
+
+/// An optional figure tagged with its report field.
+fn maybe(key: &'static str, v: Option<f64>, text: impl Fn(f64) -> String) -> Html {
+    match v {
+        Some(v) => value(key, v, text(v)),
+        None => html! { <span class="value missing" data-key={key} data-si="">{ "—" }</span> },
+    }
+}
+
+/// The layout drawn to scale: area, flight lines with direction and order, first footprints.
+pub fn diagram(layout: &Layout, units: crate::core::scenario::Units) -> Html {
+    let b = layout.bounds;
+    let pad = 0.04 * b.width.max(b.height).max(1.0);
+    let vb = format!(
+        "{} {} {} {}",
+        b.x - pad,
+        b.y - pad,
+        b.width + 2.0 * pad,
+        b.height + 2.0 * pad
+    );
+    let stroke = 0.004 * b.width.max(b.height).max(1.0);
+    let font = 0.035 * b.width.max(b.height).max(1.0);
+    let a = layout.area;
+    let first = layout.lines.first().copied();
+    let last = layout.lines.last().copied();
+    html! {
+        <figure class="layout-figure">
+            <svg class="layout" viewBox={vb} role="img" preserveAspectRatio="xMidYMid meet"
+                aria-label={format!("Survey layout to scale: {} flight lines over an area {} by {}", layout.lines_total, format::length(a.width, units), format::length(a.height, units))}>
+                <defs>
+                    <marker id="arrow" viewBox="0 0 10 10" refX="8" refY="5" markerWidth="5" markerHeight="5" orient="auto-start-reverse">
+                        <path d="M0 0 L10 5 L0 10 z" class="arrow-head" />
+                    </marker>
+                </defs>
+                <rect class="area" x={a.x.to_string()} y={a.y.to_string()} width={a.width.to_string()} height={a.height.to_string()} stroke-width={(stroke * 1.5).to_string()} />
+                { for layout.footprints.iter().map(|f| html! {
+                    <rect class={classes!("footprint", format!("line-{}", f.line))} x={f.rect.x.to_string()} y={f.rect.y.to_string()}
+                        width={f.rect.width.to_string()} height={f.rect.height.to_string()} stroke-width={stroke.to_string()} />
+                }) }
+                { for layout.lines.iter().map(|l| html! {
+                    <g class="flight-line" data-line={l.number.to_string()}>
+                        <line x1={l.start.x.to_string()} y1={l.start.y.to_string()} x2={l.end.x.to_string()} y2={l.end.y.to_string()}
+                            stroke-width={stroke.to_string()} marker-end="url(#arrow)" />
+                    </g>
+                }) }
+                { for layout.lines.windows(2).map(|w| html! {
+                    <line class="turn" x1={w[0].end.x.to_string()} y1={w[0].end.y.to_string()} x2={w[1].start.x.to_string()} y2={w[1].start.y.to_string()} stroke-width={stroke.to_string()} />
+                }) }
+                if let Some(f) = first {
+                    <circle class="start" cx={f.start.x.to_string()} cy={f.start.y.to_string()} r={(stroke * 4.0).to_string()} />
+                    <text class="label" x={(f.start.x + stroke * 6.0).to_string()} y={(f.start.y - stroke * 3.0).to_string()} font-size={font.to_string()}>{ "start, line 1" }</text>
+                }
+                if let Some(l) = last {
+                    <rect class="end" x={(l.end.x - stroke * 4.0).to_string()} y={(l.end.y - stroke * 4.0).to_string()} width={(stroke * 8.0).to_string()} height={(stroke * 8.0).to_string()} />
+                    <text class="label" x={(l.end.x - stroke * 6.0).to_string()} y={(l.end.y + font).to_string()} font-size={font.to_string()} text-anchor="end">{ format!("end, line {}", l.number) }</text>
+                }
+            </svg>
+            <figcaption>
+                { "To scale. Circle: start; square: end of the last line drawn; arrows: flying direction; shaded boxes: the first photos, showing the front and side overlaps." }
+                if layout.lines_omitted > 0 { { format!(" {} more lines are not drawn.", layout.lines_omitted) } }
+            </figcaption>
+        </figure>
+    }
+}
+
 /// The survey panel.
 #[function_component(SurveyPanel)]
 pub fn survey_panel(props: &SurveyProps) -> Html {
     let plan = &props.state.plan;
+    let scenario = &plan.scenario;
     let s = &plan.report.survey;
-    let units = plan.scenario.units;
+    let units = scenario.units;
+    let len = |v: f64| format::length(v, units);
+    let spd = |v: f64| format::speed(v, units);
+    let export = survey_geojson_checked(scenario, s);
+    let on_export = {
+        let export = export.clone();
+        let name = scenario.name.clone();
+        Callback::from(move |_| {
+            if let Ok(json) = &export {
+                browser::download(&browser::file_name(&name, "geojson"), "application/geo+json", json);
+            }
+        })
+    };
     html! {
         <section class="panel" id="survey" aria-labelledby="survey-title">
             <h2 id="survey-title">{ "Survey layout" }</h2>
             <dl class="figures">
-                <dt>{ "Footprint across the lines" }</dt><dd>{ value("footprint_across_m", s.footprint_across_m, format::length(s.footprint_across_m, units)) }</dd>
-                <dt>{ "Footprint along the lines" }</dt><dd>{ value("footprint_along_m", s.footprint_along_m, format::length(s.footprint_along_m, units)) }</dd>
+                <dt>{ "Footprint of one photo" }</dt>
+                <dd>{ value("footprint_across_m", s.footprint_across_m, len(s.footprint_across_m)) }{ " across × " }{ value("footprint_along_m", s.footprint_along_m, len(s.footprint_along_m)) }{ " along" }</dd>
+                <dt>{ "Base between photos" }</dt><dd>{ value("base_m", s.base_m, len(s.base_m)) }</dd>
+                <dt>{ "Line spacing" }</dt><dd>{ value("line_spacing_m", s.line_spacing_m, len(s.line_spacing_m)) }</dd>
+                <dt>{ "Trigger interval" }</dt><dd>{ maybe("trigger_s", s.trigger_s, format::duration) }</dd>
+                <dt>{ "Flight lines" }</dt><dd>{ count("lines", s.lines) }</dd>
+                <dt>{ "Photos per line / in total" }</dt><dd>{ count("photos_per_line", s.photos_per_line) }{ " / " }{ count("photos", s.photos) }</dd>
+                <dt>{ "Path length" }</dt><dd>{ maybe("path_length_m", s.path_length_m, len) }</dd>
+                <dt>{ "Flight time with turns" }</dt><dd>{ maybe("flight_time_s", s.flight_time_s, format::duration) }</dd>
+                <dt>{ "Batteries" }</dt><dd>{ count("batteries", s.batteries) }</dd>
+                <dt>{ "Storage" }</dt><dd>{ maybe("storage_mb", s.storage_mb, |mb| if mb >= 1000.0 { format!("{} GB", format::significant(mb / 1000.0)) } else { format!("{} MB", format::significant(mb)) }) }</dd>
+                <dt>{ "Fastest speed within the blur budget" }</dt><dd>{ maybe("max_speed_blur_mps", s.max_speed_blur_mps, spd) }</dd>
+                <dt>{ "Fastest speed the photo interval allows" }</dt><dd>{ maybe("max_speed_trigger_mps", s.max_speed_trigger_mps, spd) }</dd>
             </dl>
+            if !s.speed_flags.is_empty() {
+                <ul class="flags">
+                    { for s.speed_flags.iter().map(|f| html! {
+                        <li class="flag" data-flag={f.code}><strong>{ format!("Too fast ({}): ", f.code) }</strong>{ format!("{} {}", f.reason, f.change) }</li>
+                    }) }
+                </ul>
+            }
+            <p class="guidance" data-overlap={s.overlap_guidance.code}>{ s.overlap_guidance.text.clone() }</p>
+            { for s.survey_notes.iter().map(|n| html! { <p class="note">{ n.clone() }</p> }) }
+            if let Some(l) = layout(s, scenario) { { diagram(&l, units) } }
+            <p class="export">
+                <button type="button" onclick={on_export} disabled={export.is_err()}>{ "Download flight lines (GeoJSON)" }</button>
+                if let Err(problem) = export { <span class="note">{ format!(" {}", problem.message()) }</span> }
+            </p>
         </section>
     }
 }
