@@ -111,9 +111,7 @@ impl Frame {
     /// The place x metres across the lines from the origin, on the geodesic that leaves the origin
     /// at heading + 90°.
     fn across(&self, x: f64) -> Place {
-        let (lat, lon, azi): (f64, f64, f64) =
-            self.geodesic
-                .direct(self.lat0, self.lon0, self.heading + 90.0, x);
+        let (lat, lon, azi): (f64, f64, f64) = self.geodesic.direct(self.lat0, self.lon0, self.heading + 90.0, x);
         Place {
             lat,
             lon: self.lon0 + wrap180(lon - self.lon0),
@@ -124,9 +122,7 @@ impl Frame {
 
     /// The place y metres along the track from `from`.
     fn along(&self, from: Place, y: f64) -> Place {
-        let (lat, lon, azi): (f64, f64, f64) =
-            self.geodesic
-                .direct(from.lat, from.lon, from.along_azimuth, y);
+        let (lat, lon, azi): (f64, f64, f64) = self.geodesic.direct(from.lat, from.lon, from.along_azimuth, y);
         Place {
             lat,
             lon: self.lon0 + wrap180(lon - self.lon0),
@@ -151,23 +147,15 @@ pub fn survey_geojson(scenario: &Scenario, plan: &SurveyPlan) -> Option<String> 
 /// The survey as a GeoJSON FeatureCollection (RFC 7946): the area polygon (one counter-clockwise
 /// outer ring) and each flight line as a LineString in flying order, with the line number and
 /// direction as properties. Lines are left out when the plan has no line count.
-pub fn survey_geojson_checked(
-    scenario: &Scenario,
-    plan: &SurveyPlan,
-) -> Result<String, ExportProblem> {
-    let lat0 = scenario
-        .latitude_deg
-        .filter(|v| v.is_finite() && v.abs() < 90.0);
+pub fn survey_geojson_checked(scenario: &Scenario, plan: &SurveyPlan) -> Result<String, ExportProblem> {
+    let lat0 = scenario.latitude_deg.filter(|v| v.is_finite() && v.abs() < 90.0);
     let lon0 = scenario.longitude_deg.filter(|v| v.is_finite());
     let (Some(lat0), Some(lon0)) = (lat0, lon0) else {
         return Err(ExportProblem::NoOrigin);
     };
     let lon0 = wrap180(lon0);
     let usable = |v: Option<f64>| v.filter(|x| x.is_finite() && *x > 0.0);
-    let (Some(width), Some(length)) = (
-        usable(scenario.area_width_m),
-        usable(scenario.area_length_m),
-    ) else {
+    let (Some(width), Some(length)) = (usable(scenario.area_width_m), usable(scenario.area_length_m)) else {
         return Err(ExportProblem::NoArea);
     };
     let heading = if scenario.heading_deg.is_finite() {
@@ -200,13 +188,7 @@ pub fn survey_geojson_checked(
     let b = frame.across(width);
     let c = frame.along(b, length);
     let d = frame.along(a, length);
-    let mut ring = vec![
-        a.position(),
-        b.position(),
-        c.position(),
-        d.position(),
-        a.position(),
-    ];
+    let mut ring = vec![a.position(), b.position(), c.position(), d.position(), a.position()];
     make_counter_clockwise(&mut ring);
 
     let mut features: Vec<Value> = Vec::new();

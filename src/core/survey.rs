@@ -193,9 +193,7 @@ pub fn plan_survey(scenario: &Scenario, evaluation: &Evaluation) -> SurveyPlan {
     let line_spacing_m = side.map_or(0.0, |so| (1.0 - so) * footprint_across_m);
 
     let speed = positive(scenario.speed_mps);
-    let trigger_s = speed
-        .and_then(|v| ratio(base_m, v))
-        .filter(|_| base_m > 0.0);
+    let trigger_s = speed.and_then(|v| ratio(base_m, v)).filter(|_| base_m > 0.0);
 
     // The area: both sides are needed for counts; say which is missing or unusable.
     let width = scenario.area_width_m;
@@ -221,10 +219,7 @@ pub fn plan_survey(scenario: &Scenario, evaluation: &Evaluation) -> SurveyPlan {
     let usable = |x: Option<f64>, what: &str, notes: &mut Vec<String>| match x {
         Some(v) if v.is_finite() && v >= 0.0 => Some(v),
         Some(v) => {
-            notes.push(format!(
-                "The area {what} ({}) is not a usable length.",
-                significant(v)
-            ));
+            notes.push(format!("The area {what} ({}) is not a usable length.", significant(v)));
             None
         }
         None => None,
@@ -304,9 +299,7 @@ pub fn plan_survey(scenario: &Scenario, evaluation: &Evaluation) -> SurveyPlan {
                 .map(|t| t + (n as f64 - 1.0) * turn_s)
                 .filter(|t| t.is_finite());
             if t.is_none() {
-                notes.push(
-                    "The flight time is too long to count: check the ground speed.".to_string(),
-                );
+                notes.push("The flight time is too long to count: check the ground speed.".to_string());
             }
             t
         }
@@ -321,9 +314,7 @@ pub fn plan_survey(scenario: &Scenario, evaluation: &Evaluation) -> SurveyPlan {
             .filter(|b| *b < 1e15)
             .map(|b| b as u64),
         (Some(_), None) => {
-            notes.push(
-                "No usable flight time per battery: the battery count is left out.".to_string(),
-            );
+            notes.push("No usable flight time per battery: the battery count is left out.".to_string());
             None
         }
         _ => None,
@@ -573,12 +564,8 @@ pub struct Layout {
 /// implies. Every line spans y = 0 to the area length, as the path length counts it; photos are
 /// taken at y = 0, B, 2B, … on every line, so neighbouring lines' photos sit side by side.
 pub fn layout(plan: &SurveyPlan, scenario: &Scenario) -> Option<Layout> {
-    let width = scenario
-        .area_width_m
-        .filter(|w| w.is_finite() && *w >= 0.0)?;
-    let length = scenario
-        .area_length_m
-        .filter(|l| l.is_finite() && *l >= 0.0)?;
+    let width = scenario.area_width_m.filter(|w| w.is_finite() && *w >= 0.0)?;
+    let length = scenario.area_length_m.filter(|l| l.is_finite() && *l >= 0.0)?;
     let lines_total = plan.lines?;
     let photos_per_line = plan.photos_per_line?;
     let spacing = positive(plan.line_spacing_m)?;
@@ -639,9 +626,7 @@ pub fn layout(plan: &SurveyPlan, scenario: &Scenario) -> Option<Layout> {
         width: (drawn.max(1) - 1) as f64 * spacing,
         height: length,
     };
-    let bounds = footprints
-        .iter()
-        .fold(area.union(lines_extent), |b, f| b.union(f.rect));
+    let bounds = footprints.iter().fold(area.union(lines_extent), |b, f| b.union(f.rect));
     let finite = [bounds.x, bounds.y, bounds.width, bounds.height]
         .iter()
         .all(|v| v.is_finite());
