@@ -164,7 +164,11 @@ pub fn evaluate(setup: &Setup) -> Evaluation {
     let look = if look.is_finite() { look } else { 0.0 };
     let elevation = (std::f64::consts::FRAC_PI_2 - look).max(1e-6);
 
-    let gsd = if setup.focal_m > 0.0 { finite(pitch * range / setup.focal_m) } else { 0.0 };
+    let gsd = if setup.focal_m > 0.0 {
+        finite(pitch * range / setup.focal_m)
+    } else {
+        0.0
+    };
     let cos_look = look.cos().max(1e-6);
     let sin_elev = elevation.sin().max(1e-6);
 
@@ -190,7 +194,11 @@ pub fn evaluate(setup: &Setup) -> Evaluation {
     let (governing, limit_m) = (ranked[0], limits.get(ranked[0]));
     let runner_up = ranked[1];
     let second = limits.get(runner_up);
-    let margin = if second > 0.0 { finite(limit_m / second).max(1.0) } else { 1.0 };
+    let margin = if second > 0.0 {
+        finite(limit_m / second).max(1.0)
+    } else {
+        1.0
+    };
 
     Evaluation {
         pitch_m: pitch,

@@ -199,8 +199,14 @@ const fn spec(key: &'static str, label: &'static str, unit: &'static str, min: f
 pub const NUMBER_SPECS: &[NumberSpec] = &[
     spec("sw", "Sensor width", "mm", 0.1, 200.0),
     spec("sh", "Sensor height", "mm", 0.1, 200.0),
-    NumberSpec { integer: true, ..spec("cols", "Image width", "pixels", 16.0, 100_000.0) },
-    NumberSpec { integer: true, ..spec("rows", "Image height", "pixels", 16.0, 100_000.0) },
+    NumberSpec {
+        integer: true,
+        ..spec("cols", "Image width", "pixels", 16.0, 100_000.0)
+    },
+    NumberSpec {
+        integer: true,
+        ..spec("rows", "Image height", "pixels", 16.0, 100_000.0)
+    },
     spec("focal", "Focal length", "mm", 0.5, 5000.0),
     spec("fnum", "f-number", "", 0.5, 64.0),
     spec("wl", "Wavelength", "nm", 200.0, 20_000.0),
@@ -232,9 +238,9 @@ pub const REQUIRED_KEYS: &[&str] = &["sw", "sh", "cols", "rows", "focal", "fnum"
 
 /// Every key of the contract, in the order a query is written.
 pub const KEYS: &[&str] = &[
-    "v", "name", "sw", "sh", "cols", "rows", "focal", "fnum", "wl", "h", "gd", "tilt", "air", "cn2",
-    "cexp", "speed", "shutter", "aw", "al", "fo", "so", "need", "tdim", "trig", "endur", "turn", "mb",
-    "blur", "lat", "lon", "hdg", "units",
+    "v", "name", "sw", "sh", "cols", "rows", "focal", "fnum", "wl", "h", "gd", "tilt", "air", "cn2", "cexp", "speed",
+    "shutter", "aw", "al", "fo", "so", "need", "tdim", "trig", "endur", "turn", "mb", "blur", "lat", "lon", "hdg",
+    "units",
 ];
 
 /// The accepted range of a numeric key.
@@ -261,9 +267,17 @@ pub fn format_number(x: f64) -> String {
 impl NumberSpec {
     /// The accepted range in words, e.g. "from 0.5 to 5000 mm".
     pub fn range_text(&self) -> String {
-        let unit = if self.unit.is_empty() { String::new() } else { format!(" {}", self.unit) };
+        let unit = if self.unit.is_empty() {
+            String::new()
+        } else {
+            format!(" {}", self.unit)
+        };
         let kind = if self.integer { "a whole number" } else { "a number" };
-        format!("{kind} from {} to {}{unit}", format_number(self.min), format_number(self.max))
+        format!(
+            "{kind} from {} to {}{unit}",
+            format_number(self.min),
+            format_number(self.max)
+        )
     }
 
     /// Parses and checks one value; the error message names the field and the accepted range.
@@ -377,13 +391,22 @@ impl Scenario {
 
         if let Some(v) = raw.get("v") {
             if v.trim() != CONTRACT_VERSION.to_string() {
-                r.error("v", format!("Contract version '{}' is not known: give 1; read as version 1.", clip(v, 12)));
+                r.error(
+                    "v",
+                    format!(
+                        "Contract version '{}' is not known: give 1; read as version 1.",
+                        clip(v, 12)
+                    ),
+                );
             }
         }
 
         let name = match raw.get("name") {
             Some(n) if n.chars().count() > NAME_MAX_CHARS => {
-                r.error("name", format!("Scenario name is longer than {NAME_MAX_CHARS} characters; it was cut."));
+                r.error(
+                    "name",
+                    format!("Scenario name is longer than {NAME_MAX_CHARS} characters; it was cut."),
+                );
                 n.chars().take(NAME_MAX_CHARS).collect()
             }
             Some(n) => n.to_string(),
@@ -403,7 +426,11 @@ impl Scenario {
         let tilt = r.number("tilt");
         let offset = match (gd, tilt, raw.get("gd").is_some() && raw.get("tilt").is_some()) {
             (_, _, true) => {
-                r.error("tilt", "Give either the ground distance (gd) or the tilt, not both; the ground distance is used.".to_string());
+                r.error(
+                    "tilt",
+                    "Give either the ground distance (gd) or the tilt, not both; the ground distance is used."
+                        .to_string(),
+                );
                 Offset::GroundDistance(gd.unwrap_or(0.0))
             }
             (Some(g), _, _) => Offset::GroundDistance(g),
@@ -448,7 +475,13 @@ impl Scenario {
             None | Some("metric") => Units::Metric,
             Some("imperial") => Units::Imperial,
             Some(other) => {
-                r.error("units", format!("Display units '{}' are not known: give metric or imperial; metric is used.", clip(other, 24)));
+                r.error(
+                    "units",
+                    format!(
+                        "Display units '{}' are not known: give metric or imperial; metric is used.",
+                        clip(other, 24)
+                    ),
+                );
                 Units::Metric
             }
         };
@@ -520,10 +553,7 @@ impl Scenario {
         put("cexp", n(self.cn2_exponent));
         put("speed", n(self.speed_mps));
         put("shutter", n(self.shutter_s));
-        let optional = [
-            ("aw", self.area_width_m),
-            ("al", self.area_length_m),
-        ];
+        let optional = [("aw", self.area_width_m), ("al", self.area_length_m)];
         for (k, v) in optional {
             if let Some(v) = v {
                 put(k, n(v));

@@ -44,13 +44,14 @@ impl Profile {
 
     /// Cn² at `altitude_m` metres above the ground; never negative, never NaN.
     pub fn cn2(&self, altitude_m: f64) -> f64 {
-        let h = if altitude_m.is_finite() { altitude_m.max(0.0) } else { 0.0 };
+        let h = if altitude_m.is_finite() {
+            altitude_m.max(0.0)
+        } else {
+            0.0
+        };
         let value = match *self {
             Profile::None => 0.0,
-            Profile::HufnagelValley {
-                wind_mps,
-                ground_cn2,
-            } => {
+            Profile::HufnagelValley { wind_mps, ground_cn2 } => {
                 let w = wind_mps / 27.0;
                 0.00594 * w * w * (1e-5 * h).powi(10) * (-h / 1000.0).exp()
                     + 2.7e-16 * (-h / 1500.0).exp()
@@ -72,10 +73,7 @@ impl Profile {
                 h if h < 20_000.0 => 2e-16 / h.sqrt(),
                 _ => 0.0,
             },
-            Profile::PowerLaw {
-                cn2_at_1m,
-                exponent,
-            } => cn2_at_1m * h.max(1.0).powf(exponent),
+            Profile::PowerLaw { cn2_at_1m, exponent } => cn2_at_1m * h.max(1.0).powf(exponent),
         };
         if value.is_finite() && value > 0.0 {
             value
@@ -220,8 +218,7 @@ pub fn spherical_wave_r0(profile: &Profile, path: SlantPath, wavelength_m: f64) 
     if !(path.length_m > 0.0 && wavelength_m > 0.0) {
         return None;
     }
-    let integral = path.length_m
-        * integrate_unit_path(profile, path.camera_altitude_m, |u| u.powf(5.0 / 3.0));
+    let integral = path.length_m * integrate_unit_path(profile, path.camera_altitude_m, |u| u.powf(5.0 / 3.0));
     coherence_length(FRIED_COEFFICIENT, wavelength_m, integral)
 }
 
@@ -231,8 +228,7 @@ pub fn spherical_wave_r0_looking_up(profile: &Profile, path: SlantPath, waveleng
     if !(path.length_m > 0.0 && wavelength_m > 0.0) {
         return None;
     }
-    let integral = path.length_m
-        * integrate_unit_path(profile, path.camera_altitude_m, |u| (1.0 - u).powf(5.0 / 3.0));
+    let integral = path.length_m * integrate_unit_path(profile, path.camera_altitude_m, |u| (1.0 - u).powf(5.0 / 3.0));
     coherence_length(FRIED_COEFFICIENT, wavelength_m, integral)
 }
 
