@@ -1,0 +1,126 @@
+//! Johnson criteria and the target transfer probability function (resolution-model.md §6).
+//!
+//! Sources: J. Johnson, "Analysis of image forming systems", Proc. Image Intensifier Symposium,
+//! 1958 (AD220160) for the cycles; the TTPF P = (N/N50)^E / (1 + (N/N50)^E), E = 2.7 + 0.7·N/N50,
+//! with its published checks 0.107734, 0.944899 and P = 0.8 at N/N50 = 1.452104.
+
+use sharpfield::core::target::{self, Task};
+
+fn check(case: &str, actual: f64, expected: f64, tolerance: f64) {
+    assert!(
+        (actual - expected).abs() <= tolerance,
+        "{case}: got {actual}, expected {expected} (± {tolerance:e})"
+    );
+}
+
+#[test]
+fn ttpf_published_checks() {
+    // (N/N50, P) as published to six decimals, so ± half a unit in the sixth place.
+    let cases = [(0.5, 0.107_734), (2.0, 0.944_899), (1.452_104, 0.8), (1.0, 0.5)];
+    for (ratio, p) in cases {
+        check(&format!("TTPF({ratio})"), target::ttpf(ratio), p, 5e-7);
+    }
+}
+
+#[test]
+fn ttpf_reaches_80_percent_at_the_published_ratio() {
+    // Bisection of the TTPF for P = 0.8 lands on the published 1.452104 (to its six decimals).
+    let (mut lo, mut hi) = (1.0, 2.0);
+    for _ in 0..100 {
+        let mid = 0.5 * (lo + hi);
+        if target::ttpf(mid) < 0.8 {
+            lo = mid;
+        } else {
+            hi = mid;
+        }
+    }
+    check("N/N50 for P = 0.8", lo, 1.452_104, 5e-7);
+}
+
+#[test]
+fn ttpf_is_a_probability_rising_with_cycles() {
+    let mut previous = 0.0;
+    for i in 1..=2000 {
+        let ratio = i as f64 * 0.01;
+        let p = target::ttpf(ratio);
+        assert!((0.0..=1.0).contains(&p), "TTPF({ratio}) = {p}");
+        // Near P = 1, t/(1 + t) may round one unit in the last place either way.
+        assert!(p >= previous - f64::EPSILON, "TTPF falls at {ratio}");
+        previous = p;
+    }
+    // Degenerate inputs: no cycles, no chance; unbounded cycles, certainty; never NaN.
+    let edges = [
+        (0.0, 0.0),
+        (-1.0, 0.0),
+        (f64::NAN, 0.0),
+        (f64::NEG_INFINITY, 0.0),
+        (f64::INFINITY, 1.0),
+        (f64::MAX, 1.0),
+        (1e300, 1.0),
+    ];
+    for (ratio, p) in edges {
+        check(&format!("TTPF({ratio})"), target::ttpf(ratio), p, 0.0);
+    }
+}
+
+#[test]
+fn johnson_cycles_for_a_fifty_percent_chance() {
+    // Johnson 1958: detection 1.0, orientation 1.4, recognition 4.0, identification 6.4.
+    let cases = [
+        (Task::Detection, 1.0),
+        (Task::Orientation, 1.4),
+        (Task::Recognition, 4.0),
+        (Task::Identification, 6.4),
+    ];
+    for (task, n50) in cases {
+        check(&format!("{task:?}"), task.n50(), n50, 0.0);
+    }
+}
+
+#[test]
+fn cycles_across_a_target() {
+    // N = critical dimension / (2 × limit) (resolution-model §6); (dimension m, limit m, N).
+    let cases = [
+        (0.75, 0.05, 7.5),
+        (2.3, 0.1, 11.5),
+        (0.75, 0.75 / 12.8, 6.4),
+        (1.0, 0.0, f64::MAX),
+        (0.0, 0.1, 0.0),
+        (1.0, f64::NAN, f64::MAX),
+        (1e300, 1e-300, f64::MAX),
+    ];
+    for (dimension, limit, n) in cases {
+        check(
+            &format!("N({dimension}, {limit})"),
+            target::cycles_across(dimension, limit),
+            n,
+            1e-12 * n,
+        );
+    }
+}
+
+#[test]
+fn task_chances_follow_the_ttpf_for_each_task() {
+    // A person's 0.75 m (from memory; resolution-model §6) under a 5 cm limit: 7.5 cycles.
+    let (n, chances) = target::task_chances(0.75, 0.05);
+    check("cycles", n, 7.5, 1e-12);
+    assert_eq!(chances.len(), 4);
+    for (chance, task) in chances.iter().zip(Task::ALL) {
+        assert_eq!(chance.task, task);
+        check(
+            &format!("{task:?}"),
+            chance.probability,
+            target::ttpf(7.5 / task.n50()),
+            0.0,
+        );
+    }
+    // Identification at exactly N50 = 6.4 cycles is the 50 % point.
+    check(
+        "identification limit",
+        target::person_identification_limit_m(),
+        0.75 / (2.0 * 6.4),
+        1e-15,
+    );
+    let (_, at_limit) = target::task_chances(0.75, target::person_identification_limit_m());
+    check("P(identification) at its limit", at_limit[3].probability, 0.5, 1e-12);
+}
