@@ -86,7 +86,10 @@ fn cycles_across_a_target() {
         (0.75, 0.75 / 12.8, 6.4),
         (1.0, 0.0, f64::MAX),
         (0.0, 0.1, 0.0),
-        (1.0, f64::NAN, f64::MAX),
+        // A broken limit claims nothing (rather than certainty).
+        (1.0, f64::NAN, 0.0),
+        (1.0, -0.1, 0.0),
+        (f64::NAN, 0.1, 0.0),
         (1e300, 1e-300, f64::MAX),
     ];
     for (dimension, limit, n) in cases {

@@ -76,9 +76,11 @@ pub fn cycles_across(critical_dimension_m: f64, limit_m: f64) -> f64 {
         } else {
             f64::MAX
         }
-    } else if critical_dimension_m > 0.0 {
+    } else if critical_dimension_m > 0.0 && limit_m == 0.0 {
         f64::MAX
     } else {
+        // A negative or NaN limit says nothing about the detail: claim no cycles rather than
+        // unbounded ones, so that no task is ever reported certain on a broken input.
         0.0
     }
 }
