@@ -20,6 +20,10 @@ POLICY = (
 
 
 def main() -> int:
+    if len(sys.argv) == 3 and sys.argv[1] == "--sw-only":
+        # Used by the offline test to stand in for a new deployment of an already built folder.
+        write_service_worker(sys.argv[2])
+        return 0
     staging = os.environ.get("TRUNK_STAGING_DIR")
     if not staging:
         print("post_build: TRUNK_STAGING_DIR is not set; run through trunk", file=sys.stderr)
@@ -43,10 +47,11 @@ def main() -> int:
     return 0
 
 
+TEMPLATE = os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "static", "sw.js")
+
+
 def write_service_worker(staging: str) -> None:
-    template_path = os.path.join(staging, "sw.js")
-    if not os.path.exists(template_path):
-        return
+    """Writes staging/sw.js from static/sw.js with the list of files and a version of their contents."""
     files = []
     digest = hashlib.sha256()
     for root, _, names in os.walk(staging):
@@ -59,11 +64,11 @@ def write_service_worker(staging: str) -> None:
             with open(path, "rb") as f:
                 digest.update(rel.encode() + b"\0" + f.read())
     files.sort()
-    with open(template_path, encoding="utf-8") as f:
+    with open(TEMPLATE, encoding="utf-8") as f:
         sw = f.read()
     listing = ",\n  ".join('"./%s"' % ("" if rel == "index.html" else rel) for rel in files)
     sw = sw.replace("/*PRECACHE*/", listing).replace("BUILD_VERSION", digest.hexdigest()[:16])
-    with open(template_path, "w", encoding="utf-8") as f:
+    with open(os.path.join(staging, "sw.js"), "w", encoding="utf-8") as f:
         f.write(sw)
 
 

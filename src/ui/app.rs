@@ -10,7 +10,9 @@ use crate::ui::components::field::Choice;
 use crate::ui::components::inputs::{
     AirGroup, BandGroup, CameraGroup, GeometryGroup, LensGroup, MotionGroup, NeedGroup, SurveyGroup,
 };
+use crate::ui::components::print::PrintSheet;
 use crate::ui::components::results::Results;
+use crate::ui::components::share::SharePanel;
 use crate::ui::components::solve::SolvePanel;
 use crate::ui::components::survey::SurveyPanel;
 use crate::ui::components::target::TargetPanel;
@@ -129,13 +131,15 @@ pub fn app() -> Html {
             </form>
             <div class="outputs">
                 <Results state={snapshot.clone()} />
+                <Cautions state={snapshot.clone()} />
                 <LimitsChart state={snapshot.clone()} />
                 <SolvePanel state={snapshot.clone()} />
                 <TargetPanel state={snapshot.clone()} />
                 <SurveyPanel state={snapshot.clone()} />
-                <Cautions state={snapshot.clone()} />
+                <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} />
             </div>
         </main>
+        <PrintSheet state={snapshot.clone()} />
         <footer class="foot">
             <p>{ "Sharpfield estimates; it does not replace a test flight, local rules or licensed practice. Sources and limits: see the README." }</p>
         </footer>

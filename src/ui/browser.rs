@@ -65,3 +65,91 @@ pub fn download(file_name: &str, mime: &str, contents: &str) {
     }
     let _ = web_sys::Url::revoke_object_url(&url);
 }
+
+/// The page's local storage, or a reason it cannot be used.
+fn storage() -> Result<web_sys::Storage, String> {
+    match web_sys::window().map(|w| w.local_storage()) {
+        Some(Ok(Some(s))) => Ok(s),
+        _ => Err("This browser does not let the page store data (private mode or storage turned off).".to_string()),
+    }
+}
+
+/// Reads a stored text; `Ok(None)` when nothing is stored under `key`.
+pub fn storage_get(key: &str) -> Result<Option<String>, String> {
+    storage()?.get_item(key).map_err(|_| "The browser refused to read stored data.".to_string())
+}
+
+/// Stores a text; the error says why it could not (full, disabled).
+pub fn storage_set(key: &str, value: &str) -> Result<(), String> {
+    storage()?
+        .set_item(key, value)
+        .map_err(|_| "The browser refused to store the data: its storage may be full.".to_string())
+}
+
+/// The current date and time as ISO 8601 text.
+pub fn now_iso() -> String {
+    String::from(js_sys::Date::new_0().to_iso_string())
+}
+
+/// Milliseconds since 1970, for unique storage keys.
+pub fn now_ms() -> u64 {
+    js_sys::Date::now() as u64
+}
+
+/// The page's full address.
+pub fn location_href() -> String {
+    web_sys::window().and_then(|w| w.location().href().ok()).unwrap_or_default()
+}
+
+/// Calls `navigator[object][method](arg)` or `navigator[method](arg)` when the browser has it;
+/// false when it does not. Looked up at run time so older browsers simply lack the button.
+fn call_navigator(object: Option<&str>, method: &str, arg: &wasm_bindgen::JsValue) -> bool {
+    use wasm_bindgen::JsCast;
+    let Some(navigator) = web_sys::window().map(|w| w.navigator()) else { return false };
+    let target: wasm_bindgen::JsValue = match object {
+        Some(name) => match js_sys::Reflect::get(&navigator, &name.into()) {
+            Ok(v) if !v.is_undefined() && !v.is_null() => v,
+            _ => return false,
+        },
+        None => navigator.into(),
+    };
+    let Ok(function) = js_sys::Reflect::get(&target, &method.into()) else { return false };
+    let Some(function) = function.dyn_ref::<js_sys::Function>() else { return false };
+    function.call1(&target, arg).is_ok()
+}
+
+/// Whether the browser offers the system share sheet.
+pub fn can_share() -> bool {
+    web_sys::window()
+        .map(|w| js_sys::Reflect::has(&w.navigator(), &"share".into()).unwrap_or(false))
+        .unwrap_or(false)
+}
+
+/// Opens the system share sheet with a link; false when there is none.
+pub fn share_link(title: &str, url: &str) -> bool {
+    let data = js_sys::Object::new();
+    let _ = js_sys::Reflect::set(&data, &"title".into(), &title.into());
+    let _ = js_sys::Reflect::set(&data, &"url".into(), &url.into());
+    call_navigator(None, "share", &data.into())
+}
+
+/// Copies text to the clipboard; false when the browser has no clipboard access.
+pub fn copy_text(text: &str) -> bool {
+    call_navigator(Some("clipboard"), "writeText", &text.into())
+}
+
+/// Opens the browser's print dialog (the print style sheet lays out the one-page plan).
+pub fn print() {
+    if let Some(w) = web_sys::window() {
+        let _ = w.print();
+    }
+}
+
+/// Registers the service worker that keeps the app usable offline.
+pub fn register_service_worker() {
+    let Some(window) = web_sys::window() else { return };
+    let navigator = window.navigator();
+    if js_sys::Reflect::has(&navigator, &"serviceWorker".into()).unwrap_or(false) {
+        let _ = navigator.service_worker().register("./sw.js");
+    }
+}

@@ -14,6 +14,7 @@ use wasm_bindgen::JsCast;
 /// Installs the panic notice and mounts the app on `#app`.
 pub fn start() {
     install_panic_notice();
+    browser::register_service_worker();
     let root = web_sys::window()
         .and_then(|w| w.document())
         .and_then(|d| d.get_element_by_id("app"));

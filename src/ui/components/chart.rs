@@ -1,6 +1,6 @@
 //! The chart of the four limits and the governing envelope against height or ground distance.
 
-use crate::core::chart::{self, HEIGHT, WIDTH};
+use crate::core::chart::{self, Chart, HEIGHT, WIDTH};
 use crate::core::engine::Limit;
 use crate::ui::state::State;
 use std::rc::Rc;
@@ -22,24 +22,10 @@ fn dash(limit: Limit) -> &'static str {
     }
 }
 
-/// The chart panel.
-#[function_component(LimitsChart)]
-pub fn limits_chart(props: &ChartProps) -> Html {
-    let plan = &props.state.plan;
-    let report = &plan.report;
-    let crossings: Vec<f64> = report.envelope_changes.iter().map(|c| c.position_m).collect();
-    let c = chart::build(
-        &plan.sweep,
-        report.need_m,
-        report.reach_m,
-        &crossings,
-        plan.scenario.units,
-    );
+/// The chart as an SVG element, used on screen and on the printed plan.
+pub fn chart_svg(c: &Chart, title: &str) -> Html {
     let vb = format!("0 0 {WIDTH} {HEIGHT}");
-    let title = format!("The four limits against {}", plan.sweep.axis.noun());
     html! {
-        <section class="panel" id="chart" aria-labelledby="chart-title">
-            <h2 id="chart-title">{ title.clone() }</h2>
             <svg class="chart" viewBox={vb} role="img" aria-label={format!("{title}; the thick line is the governing envelope")} data-x-max={c.x_max_m.to_string()}>
                 <rect class="plot-bg" x={c.plot_left.to_string()} y={c.plot_top.to_string()} width={(c.plot_right - c.plot_left).to_string()} height={(c.plot_bottom - c.plot_top).to_string()} />
                 { for c.y_ticks.iter().map(|t| html! {
@@ -76,6 +62,27 @@ pub fn limits_chart(props: &ChartProps) -> Html {
                     </g>
                 }) }
             </svg>
+    }
+}
+
+/// The chart panel.
+#[function_component(LimitsChart)]
+pub fn limits_chart(props: &ChartProps) -> Html {
+    let plan = &props.state.plan;
+    let report = &plan.report;
+    let crossings: Vec<f64> = report.envelope_changes.iter().map(|c| c.position_m).collect();
+    let c = chart::build(
+        &plan.sweep,
+        report.need_m,
+        report.reach_m,
+        &crossings,
+        plan.scenario.units,
+    );
+    let title = format!("The four limits against {}", plan.sweep.axis.noun());
+    html! {
+        <section class="panel" id="chart" aria-labelledby="chart-title">
+            <h2 id="chart-title">{ title.clone() }</h2>
+            { chart_svg(&c, &title) }
             <p class="legend">
                 { "Solid: sampling · long dashes: diffraction · dots: turbulence · dash-dot: motion · thick line: the governing envelope. Vertical lines: the current " }
                 { plan.sweep.axis.noun() }{ ", the 120 m (400 ft) height many rules cap drones at, where the governing limit changes, and the greatest " }{ plan.sweep.axis.noun() }{ " meeting the need." }

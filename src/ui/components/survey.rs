@@ -33,7 +33,8 @@ fn maybe(key: &'static str, v: Option<f64>, text: impl Fn(f64) -> String) -> Htm
 }
 
 /// The layout drawn to scale: area, flight lines with direction and order, first footprints.
-pub fn diagram(layout: &Layout, units: crate::core::scenario::Units) -> Html {
+pub fn diagram(layout: &Layout, units: crate::core::scenario::Units, id: &str) -> Html {
+    let arrow_id = format!("{id}-arrow");
     let b = layout.bounds;
     let pad = 0.04 * b.width.max(b.height).max(1.0);
     let vb = format!(
@@ -50,10 +51,10 @@ pub fn diagram(layout: &Layout, units: crate::core::scenario::Units) -> Html {
     let last = layout.lines.last().copied();
     html! {
         <figure class="layout-figure">
-            <svg class="layout" viewBox={vb} role="img" preserveAspectRatio="xMidYMid meet"
+            <svg class="survey-map" viewBox={vb} role="img" preserveAspectRatio="xMidYMid meet"
                 aria-label={format!("Survey layout to scale: {} flight lines over an area {} by {}", layout.lines_total, format::length(a.width, units), format::length(a.height, units))}>
                 <defs>
-                    <marker id="arrow" viewBox="0 0 10 10" refX="8" refY="5" markerWidth="5" markerHeight="5" orient="auto-start-reverse">
+                    <marker id={arrow_id.clone()} viewBox="0 0 10 10" refX="8" refY="5" markerWidth="5" markerHeight="5" orient="auto-start-reverse">
                         <path d="M0 0 L10 5 L0 10 z" class="arrow-head" />
                     </marker>
                 </defs>
@@ -65,7 +66,7 @@ pub fn diagram(layout: &Layout, units: crate::core::scenario::Units) -> Html {
                 { for layout.lines.iter().map(|l| html! {
                     <g class="flight-line" data-line={l.number.to_string()}>
                         <line x1={l.start.x.to_string()} y1={l.start.y.to_string()} x2={l.end.x.to_string()} y2={l.end.y.to_string()}
-                            stroke-width={stroke.to_string()} marker-end="url(#arrow)" />
+                            stroke-width={stroke.to_string()} marker-end={format!("url(#{arrow_id})")} />
                     </g>
                 }) }
                 { for layout.lines.windows(2).map(|w| html! {
@@ -134,7 +135,7 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
             }
             <p class="guidance" data-overlap={s.overlap_guidance.code}>{ s.overlap_guidance.text.clone() }</p>
             { for s.survey_notes.iter().map(|n| html! { <p class="note">{ n.clone() }</p> }) }
-            if let Some(l) = layout(s, scenario) { { diagram(&l, units) } }
+            if let Some(l) = layout(s, scenario) { { diagram(&l, units, "screen") } }
             <p class="export">
                 <button type="button" onclick={on_export} disabled={export.is_err()}>{ "Download flight lines (GeoJSON)" }</button>
                 if let Err(problem) = export { <span class="note">{ format!(" {}", problem.message()) }</span> }

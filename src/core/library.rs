@@ -1,0 +1,218 @@
+//! Saved scenarios: the versioned format kept in the browser's storage and in exported files.
+//!
+//! The format is `{"format": "sharpfield-scenarios", "version": 1, "scenarios": [...]}`; each
+//! scenario keeps its URL query, so a saved scenario is exactly a shareable link. Reading never
+//! fails: entries that cannot be read are kept aside as text and reported, a file from a newer
+//! version is left untouched, and older or looser shapes (a bare list) are read leniently.
+
+use serde::{Deserialize, Serialize};
+use serde_json::Value;
+
+/// The `format` field of files this code writes.
+pub const FORMAT_NAME: &str = "sharpfield-scenarios";
+/// The version of the format this code writes.
+pub const FORMAT_VERSION: u64 = 1;
+/// Longest name kept for a saved scenario, in characters.
+pub const NAME_MAX: usize = 120;
+
+/// One saved scenario.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize, Deserialize)]
+pub struct SavedScenario {
+    /// Unique within the library.
+    pub id: String,
+    pub name: String,
+    /// The scenario as a URL query (the public contract).
+    pub query: String,
+    /// When it was saved (ISO 8601 text from the browser; shown, never parsed).
+    #[serde(default)]
+    pub saved: String,
+}
+
+/// The whole collection of saved scenarios.
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub struct Library {
+    pub scenarios: Vec<SavedScenario>,
+}
+
+/// What reading stored or imported text gave.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct ReadOutcome {
+    /// Every scenario that could be read.
+    pub library: Library,
+    /// Text that could not be read, to be kept aside, never dropped.
+    pub kept_aside: Vec<String>,
+    /// Plain messages for the person; empty when all went well.
+    pub messages: Vec<String>,
+    /// True when the text came from a newer version: it must not be overwritten.
+    pub newer_version: bool,
+}
+
+#[derive(Serialize)]
+struct FileOut<'a> {
+    format: &'static str,
+    version: u64,
+    scenarios: &'a [SavedScenario],
+}
+
+fn clip(text: &str, max: usize) -> String {
+    text.trim().chars().take(max).collect()
+}
+
+impl Library {
+    /// Writes the library in the current format.
+    pub fn to_json(&self) -> String {
+        serde_json::to_string_pretty(&FileOut {
+            format: FORMAT_NAME,
+            version: FORMAT_VERSION,
+            scenarios: &self.scenarios,
+        })
+        .unwrap_or_else(|_| format!("{{\"format\":\"{FORMAT_NAME}\",\"version\":{FORMAT_VERSION},\"scenarios\":[]}}"))
+    }
+
+    /// Reads stored or imported text; never fails (see [`ReadOutcome`]).
+    pub fn read(text: &str) -> ReadOutcome {
+        let mut out = ReadOutcome {
+            library: Library::default(),
+            kept_aside: Vec::new(),
+            messages: Vec::new(),
+            newer_version: false,
+        };
+        if text.trim().is_empty() {
+            return out;
+        }
+        let value: Value = match serde_json::from_str(text) {
+            Ok(v) => v,
+            Err(e) => {
+                out.kept_aside.push(text.to_string());
+                out.messages
+                    .push(format!("The saved scenarios could not be read ({e}); they were kept aside unchanged."));
+                return out;
+            }
+        };
+        let entries = match &value {
+            Value::Array(items) => items.clone(),
+            Value::Object(map) => {
+                let version = map.get("version").and_then(Value::as_u64).unwrap_or(0);
+                if version > FORMAT_VERSION {
+                    out.newer_version = true;
+                    out.kept_aside.push(text.to_string());
+                    out.messages.push(format!(
+                        "These saved scenarios come from a newer version of Sharpfield (format {version}); they were kept aside unchanged. Update the app to open them."
+                    ));
+                    return out;
+                }
+                match map.get("scenarios") {
+                    Some(Value::Array(items)) => items.clone(),
+                    _ => {
+                        out.kept_aside.push(text.to_string());
+                        out.messages
+                            .push("The saved scenarios have no list of scenarios; the text was kept aside.".to_string());
+                        return out;
+                    }
+                }
+            }
+            _ => {
+                out.kept_aside.push(text.to_string());
+                out.messages.push("The saved scenarios are not in a known shape; the text was kept aside.".to_string());
+                return out;
+            }
+        };
+        for entry in entries {
+            match read_entry(&entry) {
+                Some((name, query, saved)) => {
+                    out.library.insert(&name, &query, &saved);
+                }
+                None => out.kept_aside.push(entry.to_string()),
+            }
+        }
+        let unreadable = out.kept_aside.len();
+        if unreadable > 0 {
+            out.messages.push(format!(
+                "{unreadable} saved scenario(s) could not be read; they were kept aside unchanged."
+            ));
+        }
+        out
+    }
+
+    /// A fresh id: one more than the largest numeric id in use.
+    fn next_id(&self) -> String {
+        let n = self
+            .scenarios
+            .iter()
+            .filter_map(|s| s.id.strip_prefix('s').and_then(|d| d.parse::<u64>().ok()))
+            .max()
+            .unwrap_or(0);
+        format!("s{}", n.saturating_add(1))
+    }
+
+    /// A name not yet used: `name`, else `name (2)`, `name (3)`…
+    pub fn unique_name(&self, name: &str) -> String {
+        let base = clip(name, NAME_MAX);
+        let base = if base.is_empty() { "Untitled scenario".to_string() } else { base };
+        if !self.scenarios.iter().any(|s| s.name == base) {
+            return base;
+        }
+        (2..)
+            .map(|i| format!("{base} ({i})"))
+            .find(|candidate| !self.scenarios.iter().any(|s| &s.name == candidate))
+            .unwrap_or(base)
+    }
+
+    /// Adds a scenario under a unique name and returns its id.
+    pub fn insert(&mut self, name: &str, query: &str, saved: &str) -> String {
+        let id = self.next_id();
+        let name = self.unique_name(name);
+        self.scenarios.push(SavedScenario {
+            id: id.clone(),
+            name,
+            query: query.to_string(),
+            saved: saved.to_string(),
+        });
+        id
+    }
+
+    /// The scenario with `id`.
+    pub fn get(&self, id: &str) -> Option<&SavedScenario> {
+        self.scenarios.iter().find(|s| s.id == id)
+    }
+
+    /// Renames a scenario (to a unique name); false when there is no such id.
+    pub fn rename(&mut self, id: &str, name: &str) -> bool {
+        let Some(index) = self.scenarios.iter().position(|s| s.id == id) else { return false };
+        let mut others = self.clone();
+        others.scenarios.remove(index);
+        let name = others.unique_name(name);
+        self.scenarios[index].name = name;
+        true
+    }
+
+    /// Copies a scenario under a new name; returns the copy's id.
+    pub fn duplicate(&mut self, id: &str, saved: &str) -> Option<String> {
+        let original = self.get(id)?.clone();
+        Some(self.insert(&format!("{} (copy)", original.name), &original.query, saved))
+    }
+
+    /// Deletes a scenario; false when there is no such id.
+    pub fn delete(&mut self, id: &str) -> bool {
+        let before = self.scenarios.len();
+        self.scenarios.retain(|s| s.id != id);
+        self.scenarios.len() != before
+    }
+
+    /// Adds every scenario of `other` (imported), renaming where names collide; returns how many.
+    pub fn merge(&mut self, other: &Library) -> usize {
+        for s in &other.scenarios {
+            self.insert(&s.name, &s.query, &s.saved);
+        }
+        other.scenarios.len()
+    }
+}
+
+/// Reads one entry leniently: a name and a query are needed; an id is not kept (ids are local).
+fn read_entry(entry: &Value) -> Option<(String, String, String)> {
+    let map = entry.as_object()?;
+    let query = map.get("query")?.as_str()?.to_string();
+    let name = map.get("name").and_then(Value::as_str).unwrap_or("Untitled scenario");
+    let saved = map.get("saved").and_then(Value::as_str).unwrap_or("");
+    Some((clip(name, NAME_MAX), query, saved.to_string()))
+}

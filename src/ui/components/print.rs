@@ -1,0 +1,130 @@
+//! The one-page flight plan for paper (A4 and US Letter). Hidden on screen; the print style sheet
+//! shows it alone. Built from the same plan as the screen, laid out for paper.
+
+use crate::core::chart;
+use crate::core::engine::Limit;
+use crate::core::format;
+use crate::core::qr::qr_svg;
+use crate::core::scenario::{AirModel, Offset};
+use crate::core::solve::describe_reach;
+use crate::core::survey::layout;
+use crate::ui::browser;
+use crate::ui::components::chart::chart_svg;
+use crate::ui::components::survey::diagram;
+use crate::ui::state::State;
+use std::rc::Rc;
+use yew::prelude::*;
+
+/// Properties of the printed plan.
+#[derive(Properties, PartialEq, Clone)]
+pub struct PrintProps {
+    pub state: Rc<State>,
+}
+
+fn air_words(air: AirModel, cn2: f64) -> String {
+    match air {
+        AirModel::None => "turbulence left out".to_string(),
+        AirModel::Hv57 => "Hufnagel–Valley 5/7".to_string(),
+        AirModel::SlcDay => "SLC day".to_string(),
+        AirModel::SlcNight => "SLC night".to_string(),
+        AirModel::Power => format!("near-ground power law, Cn² {cn2:e} m^-2/3 at 1 m"),
+    }
+}
+
+/// The printed plan.
+#[function_component(PrintSheet)]
+pub fn print_sheet(props: &PrintProps) -> Html {
+    let plan = &props.state.plan;
+    let s = &plan.scenario;
+    let r = &plan.report;
+    let units = s.units;
+    let len = |m: f64| format::length(m, units);
+    let link = {
+        let href = browser::location_href();
+        format!("{}?{}", href.split('?').next().unwrap_or_default(), props.state.raw.to_query())
+    };
+    let date = browser::now_iso().get(..10).unwrap_or_default().to_string();
+    let crossings: Vec<f64> = r.envelope_changes.iter().map(|c| c.position_m).collect();
+    let c = chart::build(&plan.sweep, r.need_m, r.reach_m, &crossings, units);
+    let view = match s.offset {
+        Offset::GroundDistance(g) if g > 0.0 => format!("target {} away on the ground", len(g)),
+        Offset::GroundDistance(_) => "straight down".to_string(),
+        Offset::Tilt(t) => format!("tilted {}° from straight down", format::significant(t)),
+    };
+    let inputs: Vec<(&str, String)> = vec![
+        ("Camera", format!("{} × {} mm sensor, {} × {} pixels, pitch {} µm", format::significant(s.sensor_width_mm), format::significant(s.sensor_height_mm), s.cols, s.rows, format::significant(r.pitch_m * 1e6))),
+        ("Lens", format!("{} mm at f/{}", format::significant(s.focal_mm), format::significant(s.f_number))),
+        ("Band", format!("{} nm", format::significant(s.wavelength_nm))),
+        ("Geometry", format!("height {}, {view}; slant range {}", len(s.height_m), len(r.slant_range_m))),
+        ("Air", air_words(s.air, s.cn2_at_1m)),
+        ("Motion", format!("{}, exposure {} s", format::speed(s.speed_mps, units), format::significant(s.shutter_s))),
+    ];
+    let reach = match (r.need_m, r.reach) {
+        (Some(need), Some(reach)) => describe_reach(&reach, plan.sweep.axis, &format!("A detail of {}", len(need)), len),
+        _ => "No required resolution was set.".to_string(),
+    };
+    let survey = &r.survey;
+    let diagram_html = layout(survey, s).map(|l| diagram(&l, units, "print")).unwrap_or_default();
+    html! {
+        <section class="print-sheet" aria-hidden="true">
+            <header class="print-head">
+                <div>
+                    <h1>{ "Flight plan — Sharpfield" }</h1>
+                    <p class="print-name">{ if s.name.is_empty() { "Untitled scenario".to_string() } else { s.name.clone() } }</p>
+                    <p>{ format!("Printed {date}. Values are estimates; check them in the field.") }</p>
+                </div>
+                if let Some(qr) = qr_svg(&link) {
+                    <svg class="print-qr" viewBox={format!("0 0 {0} {0}", qr.size)} shape-rendering="crispEdges">
+                        <rect width={qr.size.to_string()} height={qr.size.to_string()} class="qr-light" />
+                        <path d={qr.path} class="qr-dark" />
+                    </svg>
+                }
+            </header>
+            <div class="print-grid">
+                <div>
+                    <h2>{ "Inputs" }</h2>
+                    <table class="print-table">
+                        { for inputs.iter().map(|(k, v)| html! { <tr><th>{ *k }</th><td>{ v.clone() }</td></tr> }) }
+                    </table>
+                    <h2>{ "Resolution" }</h2>
+                    <table class="print-table">
+                        { for Limit::ALL.iter().map(|&l| html! {
+                            <tr class={classes!((l == r.governing).then_some("governs"))}>
+                                <th>{ l.title() }</th>
+                                <td>{ len(match l { Limit::Sampling => r.gsd_m, Limit::Diffraction => r.diffraction_m, Limit::Turbulence => r.turbulence_m, Limit::Motion => r.motion_m }) }{ if l == r.governing { " — governs" } else { "" } }</td>
+                            </tr>
+                        }) }
+                    </table>
+                    <p>{ format!("{} governs at {}. {}", r.governing.title(), len(r.limit_m), r.advice) }</p>
+                    <p>{ reach }</p>
+                </div>
+                <div>{ chart_svg(&c, "The four limits") }</div>
+            </div>
+            <div class="print-grid">
+                <div>
+                    <h2>{ "Survey" }</h2>
+                    <table class="print-table">
+                        <tr><th>{ "Footprint" }</th><td>{ format!("{} × {}", len(survey.footprint_across_m), len(survey.footprint_along_m)) }</td></tr>
+                        <tr><th>{ "Overlaps" }</th><td>{ format!("{} % front, {} % side", format::significant(s.front_overlap_pct), format::significant(s.side_overlap_pct)) }</td></tr>
+                        <tr><th>{ "Base, line spacing" }</th><td>{ format!("{}, {}", len(survey.base_m), len(survey.line_spacing_m)) }</td></tr>
+                        <tr><th>{ "Trigger interval" }</th><td>{ survey.trigger_s.map(format::duration).unwrap_or_else(|| "—".into()) }</td></tr>
+                        <tr><th>{ "Lines, photos" }</th><td>{ format!("{}, {}", survey.lines.map(|n| n.to_string()).unwrap_or_else(|| "—".into()), survey.photos.map(|n| n.to_string()).unwrap_or_else(|| "—".into())) }</td></tr>
+                        <tr><th>{ "Flight time, batteries" }</th><td>{ format!("{}, {}", survey.flight_time_s.map(format::duration).unwrap_or_else(|| "—".into()), survey.batteries.map(|n| n.to_string()).unwrap_or_else(|| "—".into())) }</td></tr>
+                        <tr><th>{ "Speed limits" }</th><td>{ format!("blur {}, interval {}", survey.max_speed_blur_mps.map(|v| format::speed(v, units)).unwrap_or_else(|| "—".into()), survey.max_speed_trigger_mps.map(|v| format::speed(v, units)).unwrap_or_else(|| "—".into())) }</td></tr>
+                    </table>
+                </div>
+                <div class="print-diagram">{ diagram_html }</div>
+            </div>
+            <h2>{ "Cautions" }</h2>
+            <ul class="print-cautions">{ for r.cautions.iter().map(|c| html! { <li>{ c.text.clone() }</li> }) }</ul>
+            <h2>{ "Sign-off" }</h2>
+            <div class="signoff">
+                <p>{ "Pilot / operator" }<span class="blank"></span></p>
+                <p>{ "Date and time" }<span class="blank"></span></p>
+                <p>{ "Site, airspace and permissions checked" }<span class="blank"></span></p>
+                <p>{ "People nearby informed" }<span class="blank"></span></p>
+                <p>{ "Signature" }<span class="blank"></span></p>
+            </div>
+        </section>
+    }
+}
