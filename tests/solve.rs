@@ -1,6 +1,8 @@
 //! Backward solves, checked by going forward again: every answer is re-evaluated with
 //! `engine::evaluate` at and around the position or focal length it names.
 
+use proptest::prelude::*;
+use proptest::test_runner::FileFailurePersistence;
 use sharpfield::core::demo;
 use sharpfield::core::engine::{evaluate, Limit, Setup};
 use sharpfield::core::geometry::Geometry;
@@ -314,25 +316,209 @@ fn crossings_have_the_two_limits_equal_there() {
     assert!(crossings > 0);
 }
 
+/// Checks a sweep's envelope changes: the limits are equal at each change, the changes chain
+/// (each `to` is the next `from`), and on a grid ten times finer than the solve's own table the
+/// governing limit is the one the changes predict (away from the changes themselves).
+fn check_envelope(case: &str, sweep: &Sweep) -> usize {
+    let changes = sweep.envelope_changes();
+    for change in &changes {
+        let at = evaluate(&sweep.setup_at(change.position_m));
+        let (from, to) = (at.limits.get(change.from), at.limits.get(change.to));
+        assert!(
+            (from - to).abs() <= 1e-6 * from.max(to),
+            "{case}: {:?} {from:e} vs {:?} {to:e} at {}",
+            change.from,
+            change.to,
+            change.position_m
+        );
+    }
+    for pair in changes.windows(2) {
+        assert_eq!(pair[0].to, pair[1].from, "{case}: {changes:?}");
+        assert!(pair[0].position_m < pair[1].position_m, "{case}: {changes:?}");
+    }
+    let (lo, hi) = sweep.axis.domain();
+    let first = evaluate(&sweep.setup_at(lo)).governing;
+    for i in 0..=2000 {
+        let x = lo * (hi / lo).powf(i as f64 / 2000.0);
+        let near_a_change = changes.iter().any(|c| (x / c.position_m - 1.0).abs() < 1e-6);
+        if near_a_change {
+            continue;
+        }
+        let predicted = changes
+            .iter()
+            .take_while(|c| c.position_m < x)
+            .last()
+            .map_or(first, |c| c.to);
+        let governing = evaluate(&sweep.setup_at(x)).governing;
+        assert_eq!(governing, predicted, "{case}: at {x} m, changes {changes:?}");
+    }
+    changes.len()
+}
+
 #[test]
 fn envelope_changes_where_the_two_limits_are_equal() {
     let mut changes = 0;
     for (name, base) in bases() {
         for axis in [Axis::Height, Axis::GroundDistance] {
-            let sweep = Sweep::new(base, axis);
-            for change in sweep.envelope_changes() {
-                changes += 1;
-                let at = evaluate(&sweep.setup_at(change.position_m));
-                let (from, to) = (at.limits.get(change.from), at.limits.get(change.to));
-                assert!(
-                    (from - to).abs() <= 1e-6 * from.max(to),
-                    "{name}, {axis:?}: {:?} {from:e} vs {:?} {to:e} at {}",
-                    change.from,
-                    change.to,
-                    change.position_m
-                );
-            }
+            changes += check_envelope(&format!("{name}, {axis:?}"), &Sweep::new(base, axis));
         }
     }
     assert!(changes > 0);
+}
+
+#[test]
+fn envelope_keeps_a_brief_lead_between_two_table_points() {
+    // Found by the property test below: looking 85.7° from straight down, motion governs up to
+    // 64.3 m, sampling only until 66.6 m, then turbulence — both changes between two neighbouring
+    // points of the 200-point table. The envelope once reported a single motion → turbulence change.
+    let setup = Setup {
+        sensor_width_m: 0.18369001230276225,
+        sensor_height_m: 0.18369001230276225,
+        cols: 95207,
+        rows: 95207,
+        focal_m: 0.1260875687708549,
+        f_number: 0.5,
+        wavelength_m: 2.3816523154847486e-7,
+        geometry: Geometry {
+            height_m: 28.954783277864603,
+            ground_distance_m: 386.14497345049216,
+        },
+        profile: Profile::HV57,
+        speed_mps: 2.271532168577941,
+        exposure_s: 0.005790549606693558,
+    };
+    let sweep = Sweep::new(setup, Axis::Height);
+    check_envelope("brief sampling lead", &sweep);
+    let between: Vec<_> = sweep
+        .envelope_changes()
+        .into_iter()
+        .filter(|c| c.position_m < 100.0)
+        .collect();
+    assert_eq!(between.len(), 2, "{between:?}");
+    assert_eq!(evaluate(&sweep.setup_at(65.0)).governing, Limit::Sampling);
+}
+
+// ---------------------------------------------------------------------------------------------
+// The same checks on random setups across the valid ranges of the scenario
+// ---------------------------------------------------------------------------------------------
+
+/// log-uniform in [lo, hi].
+fn log_range(lo: f64, hi: f64) -> impl Strategy<Value = f64> {
+    (0.0f64..=1.0).prop_map(move |u| (lo * (hi / lo).powf(u)).clamp(lo, hi))
+}
+
+fn any_profile() -> impl Strategy<Value = Profile> {
+    prop_oneof![
+        Just(Profile::None),
+        Just(Profile::HV57),
+        Just(Profile::SlcDay),
+        Just(Profile::SlcNight),
+        (log_range(1e-18, 1e-11), -3.0f64..=0.0).prop_map(|(c, e)| Profile::PowerLaw {
+            cn2_at_1m: c,
+            exponent: e
+        }),
+    ]
+}
+
+fn any_setup() -> impl Strategy<Value = Setup> {
+    let optics = (
+        log_range(0.1, 200.0),
+        16u32..=100_000,
+        log_range(0.5, 5000.0),
+        log_range(0.5, 64.0),
+        log_range(200.0, 20_000.0),
+    );
+    let place = (
+        log_range(0.1, 20_000.0),
+        prop_oneof![log_range(1.0, 100_000.0), Just(0.0)],
+        0.0f64..=85.0,
+        any::<bool>(),
+    );
+    let motion = (prop_oneof![Just(0.0), log_range(0.1, 150.0)], log_range(1e-6, 10.0));
+    (optics, place, any_profile(), motion).prop_map(
+        |((sw, cols, focal, fnum, wl), (h, gd, tilt, use_tilt), profile, (speed, shutter))| Setup {
+            sensor_width_m: sw * 1e-3,
+            sensor_height_m: sw * 1e-3,
+            cols,
+            rows: cols,
+            focal_m: focal * 1e-3,
+            f_number: fnum,
+            wavelength_m: wl * 1e-9,
+            geometry: if use_tilt {
+                Geometry::tilted(h, tilt.to_radians())
+            } else {
+                Geometry {
+                    height_m: h,
+                    ground_distance_m: gd,
+                }
+            },
+            profile,
+            speed_mps: speed,
+            exposure_s: shutter,
+        },
+    )
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig {
+        cases: 128,
+        failure_persistence: Some(Box::new(FileFailurePersistence::Direct("proptest-regressions/solve.txt"))),
+        ..ProptestConfig::default()
+    })]
+
+    #[test]
+    fn solves_hold_on_random_setups(setup in any_setup(), need in log_range(1e-4, 1000.0)) {
+        for axis in [Axis::Height, Axis::GroundDistance] {
+            let sweep = Sweep::new(setup, axis);
+            let (lo, hi) = axis.domain();
+            match sweep.reach(need) {
+                Reach::UpTo { position_m, bound_by } => {
+                    prop_assert!((lo..=hi).contains(&position_m));
+                    prop_assert!(meets(&sweep, position_m * (1.0 - STEP), need), "{:?}: fails below {}", axis, position_m);
+                    let beyond = evaluate(&sweep.setup_at(position_m * (1.0 + STEP)));
+                    prop_assert!(beyond.limit_m > need, "{:?}: met above {}", axis, position_m);
+                    prop_assert_eq!(beyond.governing, bound_by);
+                }
+                Reach::Everywhere { up_to_m } => {
+                    prop_assert_eq!(up_to_m, hi);
+                    prop_assert!(meets(&sweep, hi, need));
+                }
+                Reach::Nowhere { forbidden_by, .. } => {
+                    let closest = evaluate(&sweep.setup_at(lo));
+                    prop_assert!(!meets(&sweep, lo, need));
+                    if closest.limits.motion > need {
+                        prop_assert_eq!(forbidden_by, Limit::Motion);
+                    }
+                }
+            }
+            for (a, b) in [(Limit::Turbulence, Limit::Sampling), (Limit::Diffraction, Limit::Sampling)] {
+                if let Crossing::At { position_m, .. } = sweep.crossing(a, b) {
+                    let at = evaluate(&sweep.setup_at(position_m));
+                    let (va, vb) = (at.limits.get(a), at.limits.get(b));
+                    prop_assert!((va - vb).abs() <= 1e-6 * va.max(vb), "{:?} {:?}×{:?}: {} vs {} at {}", axis, a, b, va, vb, position_m);
+                }
+            }
+            let changes = sweep.envelope_changes();
+            for change in &changes {
+                let at = evaluate(&sweep.setup_at(change.position_m));
+                let (from, to) = (at.limits.get(change.from), at.limits.get(change.to));
+                prop_assert!((from - to).abs() <= 1e-6 * from.max(to), "{:?}: {:?}", axis, change);
+            }
+            for pair in changes.windows(2) {
+                prop_assert_eq!(pair[0].to, pair[1].from, "{:?}: {:?}", axis, changes);
+            }
+        }
+        let e = evaluate(&setup);
+        match focal_needed(&e, &setup, need) {
+            FocalNeed::AtLeast { focal_m, .. } => {
+                let at = evaluate(&Setup { focal_m, ..setup });
+                prop_assert!(at.limit_m <= need * (1.0 + 1e-12), "{} at f = {}", at.limit_m, focal_m);
+                let shorter = evaluate(&Setup { focal_m: focal_m * (1.0 - STEP), ..setup });
+                prop_assert!(shorter.limit_m > need);
+            }
+            FocalNeed::Impossible { forbidden_by } => {
+                prop_assert!(e.limits.get(forbidden_by) > need);
+            }
+        }
+    }
 }

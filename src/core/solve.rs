@@ -104,7 +104,12 @@ impl Sweep {
     }
 
     /// Bisects between `lo` (where `inside` holds) and `hi` (where it does not).
-    fn bisect(&self, mut lo: f64, mut hi: f64, inside: impl Fn(&Evaluation) -> bool) -> f64 {
+    fn bisect(&self, lo: f64, hi: f64, inside: impl Fn(&Evaluation) -> bool) -> f64 {
+        self.bracket(lo, hi, inside).0
+    }
+
+    /// Narrows [`lo`, `hi`] (`inside` holding at `lo`, not at `hi`) to a relative width of 1e−9.
+    fn bracket(&self, mut lo: f64, mut hi: f64, inside: impl Fn(&Evaluation) -> bool) -> (f64, f64) {
         for _ in 0..BISECTIONS {
             let mid = 0.5 * (lo + hi);
             if inside(&evaluate(&self.setup_at(mid))) {
@@ -116,7 +121,7 @@ impl Sweep {
                 break;
             }
         }
-        lo
+        (lo, hi)
     }
 
     /// The greatest position along the axis at which the governing limit is at most `need_m`.
@@ -185,16 +190,24 @@ impl Sweep {
     pub fn envelope_changes(&self) -> Vec<EnvelopeChange> {
         let mut changes = Vec::new();
         for pair in self.table.windows(2) {
-            let (x0, e0) = pair[0];
+            let (mut x0, e0) = pair[0];
             let (x1, e1) = pair[1];
-            if e0.governing != e1.governing {
-                let from = e0.governing;
-                let x = self.bisect(x0, x1, |e| e.governing == from);
+            // Between two table points the governing limit can change more than once (motion to
+            // sampling to turbulence, say, where sampling leads only briefly): find each change
+            // in turn, naming the limit that governs just past it, until the far point's is reached.
+            let mut from = e0.governing;
+            let mut found = 0;
+            while from != e1.governing && found < 2 * Limit::ALL.len() {
+                let (lo, hi) = self.bracket(x0, x1, |e| e.governing == from);
+                let to = evaluate(&self.setup_at(hi)).governing;
                 changes.push(EnvelopeChange {
-                    position_m: x,
+                    position_m: lo,
                     from,
-                    to: e1.governing,
+                    to,
                 });
+                from = to;
+                x0 = hi;
+                found += 1;
             }
         }
         changes
