@@ -21,6 +21,9 @@ use std::rc::Rc;
 use web_sys::HtmlInputElement;
 use yew::prelude::*;
 
+/// Where the high-contrast preference is kept.
+const THEME_KEY: &str = "sharpfield.theme";
+
 /// The scenario the page opens with: the one in its address, or the first demo.
 fn initial_raw() -> RawScenario {
     browser::scenario_from_location().unwrap_or_else(|| demo::pasture_survey().to_raw())
@@ -73,7 +76,11 @@ pub fn app() -> Html {
         let dispatch = dispatch.clone();
         Callback::from(move |units: String| dispatch.emit(Action::set("units", units)))
     };
-    let contrast = use_state(|| false);
+    let contrast = use_state(|| browser::storage_get(THEME_KEY).ok().flatten().as_deref() == Some("contrast"));
+    {
+        let on = *contrast;
+        use_effect_with(on, |on| browser::set_theme(if *on { "contrast" } else { "default" }));
+    }
     let on_contrast = {
         let contrast = contrast.clone();
         Callback::from(move |_| {
@@ -130,6 +137,9 @@ pub fn app() -> Html {
                 }) }
             </form>
             <div class="outputs">
+                if snapshot.plan.scenario.name.ends_with("(demo)") {
+                    <p class="intro">{ "This is a worked demo of invented places. Every figure below follows the inputs on the left: change the height, the lens or the air and watch which limit governs. Open the other demo from “Demos”, or start from your own camera." }</p>
+                }
                 <Results state={snapshot.clone()} />
                 <Cautions state={snapshot.clone()} />
                 <LimitsChart state={snapshot.clone()} />

@@ -76,7 +76,9 @@ fn storage() -> Result<web_sys::Storage, String> {
 
 /// Reads a stored text; `Ok(None)` when nothing is stored under `key`.
 pub fn storage_get(key: &str) -> Result<Option<String>, String> {
-    storage()?.get_item(key).map_err(|_| "The browser refused to read stored data.".to_string())
+    storage()?
+        .get_item(key)
+        .map_err(|_| "The browser refused to read stored data.".to_string())
 }
 
 /// Stores a text; the error says why it could not (full, disabled).
@@ -98,14 +100,18 @@ pub fn now_ms() -> u64 {
 
 /// The page's full address.
 pub fn location_href() -> String {
-    web_sys::window().and_then(|w| w.location().href().ok()).unwrap_or_default()
+    web_sys::window()
+        .and_then(|w| w.location().href().ok())
+        .unwrap_or_default()
 }
 
 /// Calls `navigator[object][method](arg)` or `navigator[method](arg)` when the browser has it;
 /// false when it does not. Looked up at run time so older browsers simply lack the button.
 fn call_navigator(object: Option<&str>, method: &str, arg: &wasm_bindgen::JsValue) -> bool {
     use wasm_bindgen::JsCast;
-    let Some(navigator) = web_sys::window().map(|w| w.navigator()) else { return false };
+    let Some(navigator) = web_sys::window().map(|w| w.navigator()) else {
+        return false;
+    };
     let target: wasm_bindgen::JsValue = match object {
         Some(name) => match js_sys::Reflect::get(&navigator, &name.into()) {
             Ok(v) if !v.is_undefined() && !v.is_null() => v,
@@ -113,8 +119,12 @@ fn call_navigator(object: Option<&str>, method: &str, arg: &wasm_bindgen::JsValu
         },
         None => navigator.into(),
     };
-    let Ok(function) = js_sys::Reflect::get(&target, &method.into()) else { return false };
-    let Some(function) = function.dyn_ref::<js_sys::Function>() else { return false };
+    let Ok(function) = js_sys::Reflect::get(&target, &method.into()) else {
+        return false;
+    };
+    let Some(function) = function.dyn_ref::<js_sys::Function>() else {
+        return false;
+    };
     function.call1(&target, arg).is_ok()
 }
 
@@ -151,5 +161,15 @@ pub fn register_service_worker() {
     let navigator = window.navigator();
     if js_sys::Reflect::has(&navigator, &"serviceWorker".into()).unwrap_or(false) {
         let _ = navigator.service_worker().register("./sw.js");
+    }
+}
+
+/// Applies a colour theme to the whole page (`default` or `contrast`).
+pub fn set_theme(theme: &str) {
+    if let Some(root) = web_sys::window()
+        .and_then(|w| w.document())
+        .and_then(|d| d.document_element())
+    {
+        let _ = root.set_attribute("data-theme", theme);
     }
 }

@@ -38,18 +38,27 @@ fn load_saved() -> Saved {
             return Saved {
                 library: Library::default(),
                 writable: false,
-                messages: vec![format!("{message} Saved scenarios last only until the page closes; export them to a file.")],
+                messages: vec![format!(
+                    "{message} Saved scenarios last only until the page closes; export them to a file."
+                )],
             }
         }
     };
-    let ReadOutcome { library, kept_aside, mut messages, newer_version } = Library::read(&text);
+    let ReadOutcome {
+        library,
+        kept_aside,
+        mut messages,
+        newer_version,
+    } = Library::read(&text);
     let mut writable = !newer_version;
     let stamp = browser::now_ms();
     for (i, aside) in kept_aside.iter().enumerate() {
         let key = format!("{KEPT_ASIDE_PREFIX}{stamp}.{i}");
         if let Err(problem) = browser::storage_set(&key, aside) {
             writable = false;
-            messages.push(format!("{problem} To protect what is stored, saving is off until this is resolved."));
+            messages.push(format!(
+                "{problem} To protect what is stored, saving is off until this is resolved."
+            ));
         } else {
             messages.push(format!("Kept aside in the browser's storage under “{key}”."));
         }
@@ -57,7 +66,11 @@ fn load_saved() -> Saved {
     if newer_version {
         writable = false;
     }
-    Saved { library, writable, messages }
+    Saved {
+        library,
+        writable,
+        messages,
+    }
 }
 
 /// The share panel.
@@ -87,7 +100,9 @@ pub fn share_panel(props: &ShareProps) -> Html {
             let message = if next.writable {
                 match browser::storage_set(STORAGE_KEY, &next.library.to_json()) {
                     Ok(()) => done,
-                    Err(problem) => format!("{problem} The change is kept until the page closes; export your scenarios to a file."),
+                    Err(problem) => {
+                        format!("{problem} The change is kept until the page closes; export your scenarios to a file.")
+                    }
                 }
             } else {
                 format!("{done} (not stored: saving is off, see above; export to a file to keep it.)")
@@ -102,7 +117,11 @@ pub fn share_panel(props: &ShareProps) -> Html {
         let status = status.clone();
         Callback::from(move |_| {
             let ok = browser::copy_text(&link);
-            status.set(Some(if ok { "Link copied.".to_string() } else { format!("Copy this link: {link}") }));
+            status.set(Some(if ok {
+                "Link copied.".to_string()
+            } else {
+                format!("Copy this link: {link}")
+            }));
         })
     };
     let on_share = {
@@ -126,7 +145,11 @@ pub fn share_panel(props: &ShareProps) -> Html {
         Callback::from(move |e: SubmitEvent| {
             e.prevent_default();
             let mut library = saved.library.clone();
-            let wanted = if save_name.trim().is_empty() { default_name.clone() } else { (*save_name).clone() };
+            let wanted = if save_name.trim().is_empty() {
+                default_name.clone()
+            } else {
+                (*save_name).clone()
+            };
             let id = library.insert(&wanted, &query, &browser::now_iso());
             let name = library.get(&id).map(|s| s.name.clone()).unwrap_or_default();
             commit(library, format!("Saved as “{name}”."));
@@ -136,7 +159,11 @@ pub fn share_panel(props: &ShareProps) -> Html {
     let on_export = {
         let saved = saved.clone();
         Callback::from(move |_| {
-            browser::download("sharpfield-scenarios.json", "application/json", &saved.library.to_json());
+            browser::download(
+                "sharpfield-scenarios.json",
+                "application/json",
+                &saved.library.to_json(),
+            );
         })
     };
     let on_import = {
@@ -146,7 +173,9 @@ pub fn share_panel(props: &ShareProps) -> Html {
         let reader = use_mut_ref(|| Option::<gloo::file::callbacks::FileReader>::None);
         Callback::from(move |e: Event| {
             let input: HtmlInputElement = e.target_unchecked_into();
-            let Some(file) = input.files().and_then(|files| files.get(0)) else { return };
+            let Some(file) = input.files().and_then(|files| files.get(0)) else {
+                return;
+            };
             let file = gloo::file::File::from(file);
             let saved = saved.clone();
             let commit = commit.clone();
@@ -301,7 +330,7 @@ pub fn share_panel(props: &ShareProps) -> Html {
             }
             <div class="library-actions">
                 <button type="button" id="export-scenarios" onclick={on_export}>{ "Export all to a file" }</button>
-                <label class="file-button" for="import-scenarios">{ "Import from a file" }</label>
+                <label class="file-label" for="import-scenarios">{ "Import from a file" }</label>
                 <input id="import-scenarios" type="file" accept=".json,application/json" onchange={on_import} />
             </div>
         </section>
