@@ -5,6 +5,8 @@
 //! 2015 (GSD definitions); Born & Wolf §8.5 (Rayleigh); Schmidt 2010 ch. 9 (r0); the 0.98·λ/r0
 //! seeing FWHM (common practice in adaptive optics).
 
+use proptest::prelude::*;
+use proptest::test_runner::FileFailurePersistence;
 use sharpfield::core::engine::{evaluate, Limit, Limits, Setup};
 use sharpfield::core::geometry::Geometry;
 use sharpfield::core::solve::{Axis, Sweep};
@@ -349,6 +351,84 @@ fn every_figure_is_finite_at_the_edges_of_the_valid_ranges() {
                     }
                 }
             }
+        }
+    }
+}
+
+// ---------------------------------------------------------------------------------------------
+// The same properties on random setups across the valid ranges of the scenario
+// ---------------------------------------------------------------------------------------------
+
+/// log-uniform in [lo, hi].
+fn log_range(lo: f64, hi: f64) -> impl Strategy<Value = f64> {
+    (0.0f64..=1.0).prop_map(move |u| (lo * (hi / lo).powf(u)).clamp(lo, hi))
+}
+
+fn any_setup() -> impl Strategy<Value = Setup> {
+    let profile = prop_oneof![
+        Just(Profile::None),
+        Just(Profile::HV57),
+        Just(Profile::SlcDay),
+        Just(Profile::SlcNight),
+        (log_range(1e-18, 1e-11), -3.0f64..=0.0).prop_map(|(c, e)| Profile::PowerLaw {
+            cn2_at_1m: c,
+            exponent: e
+        }),
+    ];
+    (
+        (
+            log_range(0.1, 200.0),
+            16u32..=100_000,
+            log_range(0.5, 5000.0),
+            log_range(0.5, 64.0),
+        ),
+        (log_range(200.0, 20_000.0), log_range(0.1, 20_000.0), 0.0f64..=85.0),
+        profile,
+        (0.0f64..=150.0, log_range(1e-6, 10.0)),
+    )
+        .prop_map(
+            |((sw, cols, focal, fnum), (wl, h, tilt), profile, (speed, shutter))| Setup {
+                sensor_width_m: sw * 1e-3,
+                sensor_height_m: sw * 1e-3,
+                cols,
+                rows: cols,
+                focal_m: focal * 1e-3,
+                f_number: fnum,
+                wavelength_m: wl * 1e-9,
+                geometry: Geometry::tilted(h, tilt.to_radians()),
+                profile,
+                speed_mps: speed,
+                exposure_s: shutter,
+            },
+        )
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig {
+        cases: 256,
+        failure_persistence: Some(Box::new(FileFailurePersistence::Direct("proptest-regressions/engine.txt"))),
+        ..ProptestConfig::default()
+    })]
+
+    #[test]
+    fn limits_grow_with_range_on_random_setups(setup in any_setup(), axis_is_height in any::<bool>()) {
+        // ∫₀^R Cn²(z)·z^(5/3) dz only grows with R, so the seeing limit R·0.98λ/r0 cannot fall; the
+        // other limits are proportional to R or constant. 1e−6 allows for the path integral's own
+        // error (about 1e−7 at worst, tests/turbulence.rs), which jumps as its pieces change.
+        let axis = if axis_is_height { Axis::Height } else { Axis::GroundDistance };
+        let sweep = Sweep::new(setup, axis);
+        let (lo, hi) = axis.domain();
+        let mut before = evaluate(&sweep.setup_at(lo)).limits;
+        for i in 1..=300 {
+            let x = lo * (hi / lo).powf(i as f64 / 300.0);
+            let now = evaluate(&sweep.setup_at(x)).limits;
+            for limit in Limit::ALL {
+                prop_assert!(
+                    now.get(limit) >= before.get(limit) * (1.0 - 1e-6),
+                    "{:?} falls from {:e} to {:e} at {} m", limit, before.get(limit), now.get(limit), x
+                );
+            }
+            before = now;
         }
     }
 }
