@@ -4,7 +4,7 @@
 //! dispatch [`state::Action`]s; browser services (URL, storage, printing) never panic when the
 //! browser refuses them.
 
-mod app;
+pub mod app;
 mod browser;
 mod components;
 pub mod state;
