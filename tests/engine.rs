@@ -5,6 +5,8 @@
 //! 2015 (GSD definitions); Born & Wolf §8.5 (Rayleigh); Schmidt 2010 ch. 9 (r0); the 0.98·λ/r0
 //! seeing FWHM (common practice in adaptive optics).
 
+mod common;
+
 use proptest::prelude::*;
 use proptest::test_runner::FileFailurePersistence;
 use sharpfield::core::engine::{evaluate, Limit, Limits, Setup};
@@ -177,26 +179,7 @@ fn governing_is_the_largest_and_ties_keep_the_display_order() {
 
 /// The setups the sweeps start from: every air model, a nadir drone and a mast.
 fn sweep_bases() -> Vec<(String, Setup)> {
-    let profiles = [
-        ("none", Profile::None),
-        ("HV 5/7", Profile::HV57),
-        ("SLC-Day", Profile::SlcDay),
-        ("SLC-Night", Profile::SlcNight),
-        (
-            "power −4/3",
-            Profile::PowerLaw {
-                cn2_at_1m: 1e-13,
-                exponent: -4.0 / 3.0,
-            },
-        ),
-        (
-            "power −2/3",
-            Profile::PowerLaw {
-                cn2_at_1m: 1e-14,
-                exponent: -2.0 / 3.0,
-            },
-        ),
-    ];
+    let profiles = common::named_profiles();
     let mut bases = Vec::new();
     for (name, profile) in profiles {
         for (place, geometry) in [
@@ -359,50 +342,6 @@ fn every_figure_is_finite_at_the_edges_of_the_valid_ranges() {
 // The same properties on random setups across the valid ranges of the scenario
 // ---------------------------------------------------------------------------------------------
 
-/// log-uniform in [lo, hi].
-fn log_range(lo: f64, hi: f64) -> impl Strategy<Value = f64> {
-    (0.0f64..=1.0).prop_map(move |u| (lo * (hi / lo).powf(u)).clamp(lo, hi))
-}
-
-fn any_setup() -> impl Strategy<Value = Setup> {
-    let profile = prop_oneof![
-        Just(Profile::None),
-        Just(Profile::HV57),
-        Just(Profile::SlcDay),
-        Just(Profile::SlcNight),
-        (log_range(1e-18, 1e-11), -3.0f64..=0.0).prop_map(|(c, e)| Profile::PowerLaw {
-            cn2_at_1m: c,
-            exponent: e
-        }),
-    ];
-    (
-        (
-            log_range(0.1, 200.0),
-            16u32..=100_000,
-            log_range(0.5, 5000.0),
-            log_range(0.5, 64.0),
-        ),
-        (log_range(200.0, 20_000.0), log_range(0.1, 20_000.0), 0.0f64..=85.0),
-        profile,
-        (0.0f64..=150.0, log_range(1e-6, 10.0)),
-    )
-        .prop_map(
-            |((sw, cols, focal, fnum), (wl, h, tilt), profile, (speed, shutter))| Setup {
-                sensor_width_m: sw * 1e-3,
-                sensor_height_m: sw * 1e-3,
-                cols,
-                rows: cols,
-                focal_m: focal * 1e-3,
-                f_number: fnum,
-                wavelength_m: wl * 1e-9,
-                geometry: Geometry::tilted(h, tilt.to_radians()),
-                profile,
-                speed_mps: speed,
-                exposure_s: shutter,
-            },
-        )
-}
-
 proptest! {
     #![proptest_config(ProptestConfig {
         cases: 256,
@@ -411,7 +350,7 @@ proptest! {
     })]
 
     #[test]
-    fn limits_grow_with_range_on_random_setups(setup in any_setup(), axis_is_height in any::<bool>()) {
+    fn limits_grow_with_range_on_random_setups(setup in common::any_setup(), axis_is_height in any::<bool>()) {
         // ∫₀^R Cn²(z)·z^(5/3) dz only grows with R, so the seeing limit R·0.98λ/r0 cannot fall; the
         // other limits are proportional to R or constant. 1e−6 allows for the path integral's own
         // error (about 1e−7 at worst, tests/turbulence.rs), which jumps as its pieces change.

@@ -1,5 +1,8 @@
 //! Backward solves, checked by going forward again: every answer is re-evaluated with
-//! `engine::evaluate` at and around the position or focal length it names.
+//! `engine::evaluate` at and around the position or focal length it names. Each check is one
+//! helper returning what went wrong; the named cases and the property test share them.
+
+mod common;
 
 use proptest::prelude::*;
 use proptest::test_runner::FileFailurePersistence;
@@ -12,30 +15,23 @@ use sharpfield::core::turbulence::Profile;
 /// A small step, relative, well above the solves' bisection tolerance (1e−9).
 const STEP: f64 = 1e-6;
 
+const NEEDS: [f64; 9] = [0.0005, 0.002, 0.005, 0.01, 0.03, 0.1, 0.3, 1.0, 10.0];
+
+const AXES: [Axis; 2] = [Axis::Height, Axis::GroundDistance];
+
+/// Limit pairs whose crossings the report and the chart use, and two more.
+const PAIRS: [(Limit, Limit); 4] = [
+    (Limit::Turbulence, Limit::Sampling),
+    (Limit::Diffraction, Limit::Sampling),
+    (Limit::Turbulence, Limit::Diffraction),
+    (Limit::Motion, Limit::Sampling),
+];
+
 /// Named starting setups: the two demos and variations across the air models and geometries.
 fn bases() -> Vec<(String, Setup)> {
     let survey = demo::pasture_survey().setup();
     let mast = demo::fence_mast().setup();
-    let profiles = [
-        ("none", Profile::None),
-        ("HV 5/7", Profile::HV57),
-        ("SLC-Day", Profile::SlcDay),
-        ("SLC-Night", Profile::SlcNight),
-        (
-            "power −4/3, 1e−13",
-            Profile::PowerLaw {
-                cn2_at_1m: 1e-13,
-                exponent: -4.0 / 3.0,
-            },
-        ),
-        (
-            "power −2/3, 1e−12",
-            Profile::PowerLaw {
-                cn2_at_1m: 1e-12,
-                exponent: -2.0 / 3.0,
-            },
-        ),
-    ];
+    let profiles = common::named_profiles();
     let mut out = Vec::new();
     for (name, profile) in profiles {
         out.push((format!("survey drone, {name}"), Setup { profile, ..survey }));
@@ -64,59 +60,196 @@ fn bases() -> Vec<(String, Setup)> {
     out
 }
 
-const NEEDS: [f64; 9] = [0.0005, 0.002, 0.005, 0.01, 0.03, 0.1, 0.3, 1.0, 10.0];
-
 fn meets(sweep: &Sweep, x: f64, need: f64) -> bool {
     evaluate(&sweep.setup_at(x)).limit_m <= need
+}
+
+/// Fails with `message` unless `condition` holds.
+fn ensure(condition: bool, message: impl FnOnce() -> String) -> Result<(), String> {
+    if condition {
+        Ok(())
+    } else {
+        Err(message())
+    }
+}
+
+/// The reach answer, checked: UpTo meets the need just below and at its position and fails just
+/// above, naming the limit that governs there; Everywhere meets it at the far end of the domain;
+/// Nowhere fails at the near end (and, with `fine_grid` > 0, on that many points across the
+/// domain), naming motion when the smear alone exceeds the need. Returns 0, 1 or 2 for the kind.
+fn check_reach(sweep: &Sweep, need: f64, fine_grid: usize) -> Result<usize, String> {
+    let (lo, hi) = sweep.axis.domain();
+    match sweep.reach(need) {
+        Reach::UpTo { position_m, bound_by } => {
+            ensure((lo..=hi).contains(&position_m), || {
+                format!("{position_m} outside the domain")
+            })?;
+            ensure(meets(sweep, position_m * (1.0 - STEP), need), || {
+                format!("fails just below {position_m}")
+            })?;
+            ensure(meets(sweep, position_m, need), || format!("fails at {position_m}"))?;
+            let beyond = evaluate(&sweep.setup_at(position_m * (1.0 + STEP)));
+            ensure(beyond.limit_m > need, || format!("still met just above {position_m}"))?;
+            ensure(beyond.governing == bound_by, || {
+                format!("names {bound_by:?}, but {:?} governs beyond", beyond.governing)
+            })?;
+            Ok(0)
+        }
+        Reach::Everywhere { up_to_m } => {
+            ensure(up_to_m == hi, || format!("everywhere up to {up_to_m}, not {hi}"))?;
+            ensure(meets(sweep, hi, need), || "fails at the far end".into())?;
+            Ok(1)
+        }
+        Reach::Nowhere { forbidden_by, best_m } => {
+            let closest = evaluate(&sweep.setup_at(lo));
+            ensure(!meets(sweep, lo, need), || "met at the near end".into())?;
+            ensure(best_m == closest.limit_m, || {
+                format!("best {best_m}, not {}", closest.limit_m)
+            })?;
+            let motion = closest.limits.motion > need || closest.governing == Limit::Motion;
+            ensure((forbidden_by == Limit::Motion) == motion, || {
+                format!("names {forbidden_by:?} with motion {} m", closest.limits.motion)
+            })?;
+            for i in (0..=fine_grid).filter(|_| fine_grid > 0) {
+                let x = lo * (hi / lo).powf(i as f64 / fine_grid as f64);
+                ensure(!meets(sweep, x, need), || format!("met at {x} m"))?;
+            }
+            Ok(2)
+        }
+    }
+}
+
+/// The focal length answer, checked by evaluating again: the named limit equals the need at the
+/// returned focal length, a lens a hair shorter fails and a longer one meets it; Impossible names
+/// a lens-free limit that exceeds the need even behind a huge lens. Returns 0 or 1 for the kind.
+fn check_focal(base: &Setup, need: f64) -> Result<usize, String> {
+    let e = evaluate(base);
+    match focal_needed(&e, base, need) {
+        FocalNeed::AtLeast { focal_m, bound_by } => {
+            let at = evaluate(&Setup { focal_m, ..*base });
+            ensure(at.limit_m <= need * (1.0 + 1e-12), || {
+                format!("{} at f = {focal_m}", at.limit_m)
+            })?;
+            let value = at.limits.get(bound_by);
+            ensure((value - need).abs() <= 1e-12 * need, || {
+                format!("{bound_by:?} is {value} at f = {focal_m}")
+            })?;
+            let shorter = evaluate(&Setup {
+                focal_m: focal_m * (1.0 - STEP),
+                ..*base
+            });
+            ensure(shorter.limit_m > need, || "a shorter lens also meets the need".into())?;
+            let longer = evaluate(&Setup {
+                focal_m: focal_m * 10.0,
+                ..*base
+            });
+            ensure(longer.limit_m <= need, || "a longer lens fails".into())?;
+            Ok(0)
+        }
+        FocalNeed::Impossible { forbidden_by } => {
+            ensure(matches!(forbidden_by, Limit::Turbulence | Limit::Motion), || {
+                format!("{forbidden_by:?} depends on the lens")
+            })?;
+            ensure(e.limits.get(forbidden_by) > need, || {
+                format!("{forbidden_by:?} meets the need")
+            })?;
+            let huge = evaluate(&Setup {
+                focal_m: base.focal_m * 1e6,
+                ..*base
+            });
+            ensure(huge.limit_m > need, || "met with a huge lens".into())?;
+            Ok(1)
+        }
+    }
+}
+
+/// The crossing of `a` and `b`, checked: equal there, each larger on its side; or, for Never,
+/// the larger one larger at every table point. Returns whether they cross.
+fn check_crossing(sweep: &Sweep, a: Limit, b: Limit) -> Result<bool, String> {
+    let other = |l: Limit| if l == a { b } else { a };
+    match sweep.crossing(a, b) {
+        Crossing::At {
+            position_m,
+            larger_below,
+            larger_above,
+        } => {
+            let at = evaluate(&sweep.setup_at(position_m));
+            let (va, vb) = (at.limits.get(a), at.limits.get(b));
+            ensure((va - vb).abs() <= 1e-6 * va.max(vb), || {
+                format!("{va:e} vs {vb:e} at {position_m}")
+            })?;
+            let below = evaluate(&sweep.setup_at(position_m * (1.0 - 1e-4))).limits;
+            let above = evaluate(&sweep.setup_at(position_m * (1.0 + 1e-4))).limits;
+            ensure(below.get(larger_below) >= below.get(other(larger_below)), || {
+                "below".into()
+            })?;
+            ensure(above.get(larger_above) >= above.get(other(larger_above)), || {
+                "above".into()
+            })?;
+            ensure(larger_below != larger_above, || "the same limit on both sides".into())?;
+            Ok(true)
+        }
+        Crossing::Never { larger } => {
+            for (x, e) in sweep.table() {
+                ensure(
+                    e.limits.get(larger) >= e.limits.get(other(larger)) * (1.0 - 1e-12),
+                    || format!("{:?} is larger at {x}", other(larger)),
+                )?;
+            }
+            Ok(false)
+        }
+    }
+}
+
+/// The envelope changes, checked: the two limits are equal at each change, the changes chain
+/// (each `to` is the next `from`), and, with `fine_grid` > 0, on that many points the governing
+/// limit is the one the changes predict (away from the changes themselves). Returns the count.
+fn check_envelope(sweep: &Sweep, fine_grid: usize) -> Result<usize, String> {
+    let changes = sweep.envelope_changes();
+    for change in &changes {
+        let at = evaluate(&sweep.setup_at(change.position_m));
+        let (from, to) = (at.limits.get(change.from), at.limits.get(change.to));
+        ensure((from - to).abs() <= 1e-6 * from.max(to), || {
+            format!("{change:?}: {from:e} vs {to:e}")
+        })?;
+    }
+    for pair in changes.windows(2) {
+        ensure(
+            pair[0].to == pair[1].from && pair[0].position_m < pair[1].position_m,
+            || format!("the changes do not chain: {changes:?}"),
+        )?;
+    }
+    let (lo, hi) = sweep.axis.domain();
+    let first = evaluate(&sweep.setup_at(lo)).governing;
+    for i in (0..=fine_grid).filter(|_| fine_grid > 0) {
+        let x = lo * (hi / lo).powf(i as f64 / fine_grid as f64);
+        if changes.iter().any(|c| (x / c.position_m - 1.0).abs() < 1e-6) {
+            continue;
+        }
+        let predicted = changes
+            .iter()
+            .take_while(|c| c.position_m < x)
+            .last()
+            .map_or(first, |c| c.to);
+        let governing = evaluate(&sweep.setup_at(x)).governing;
+        ensure(governing == predicted, || {
+            format!("{governing:?} governs at {x} m, not {predicted:?}: {changes:?}")
+        })?;
+    }
+    Ok(changes.len())
 }
 
 #[test]
 fn reach_meets_the_need_just_below_and_fails_just_above() {
     let mut seen = [0usize; 3];
     for (name, base) in bases() {
-        for axis in [Axis::Height, Axis::GroundDistance] {
+        for axis in AXES {
             let sweep = Sweep::new(base, axis);
-            let (lo, hi) = axis.domain();
             for need in NEEDS {
-                let case = format!("{name}, {axis:?}, need {need} m");
-                match sweep.reach(need) {
-                    Reach::UpTo { position_m, bound_by } => {
-                        seen[0] += 1;
-                        assert!(
-                            (lo..=hi).contains(&position_m),
-                            "{case}: {position_m} outside the domain"
-                        );
-                        assert!(
-                            meets(&sweep, position_m * (1.0 - STEP), need),
-                            "{case}: fails just below {position_m}"
-                        );
-                        assert!(meets(&sweep, position_m, need), "{case}: fails at {position_m}");
-                        let beyond = evaluate(&sweep.setup_at(position_m * (1.0 + STEP)));
-                        assert!(beyond.limit_m > need, "{case}: still met just above {position_m}");
-                        assert_eq!(beyond.governing, bound_by, "{case}: the wrong limit named");
-                    }
-                    Reach::Everywhere { up_to_m } => {
-                        seen[1] += 1;
-                        assert_eq!(up_to_m, hi, "{case}");
-                        assert!(meets(&sweep, hi, need), "{case}: fails at the far end");
-                    }
-                    Reach::Nowhere { forbidden_by, best_m } => {
-                        seen[2] += 1;
-                        let closest = evaluate(&sweep.setup_at(lo));
-                        assert!(!meets(&sweep, lo, need), "{case}: met at the near end");
-                        assert_eq!(best_m, closest.limit_m, "{case}: best");
-                        let motion_alone = closest.limits.motion > need;
-                        assert_eq!(
-                            forbidden_by == Limit::Motion,
-                            motion_alone || closest.governing == Limit::Motion,
-                            "{case}"
-                        );
-                        // Nowhere on a grid five times finer than the solve's own table.
-                        for i in 0..=1000 {
-                            let x = lo * (hi / lo).powf(i as f64 / 1000.0);
-                            assert!(!meets(&sweep, x, need), "{case}: met at {x} m");
-                        }
-                    }
+                // Nowhere is checked on a grid five times finer than the solve's own table.
+                match check_reach(&sweep, need, 1000) {
+                    Ok(kind) => seen[kind] += 1,
+                    Err(problem) => panic!("{name}, {axis:?}, need {need} m: {problem}"),
                 }
             }
         }
@@ -136,7 +269,7 @@ fn nowhere_names_motion_when_the_smear_alone_exceeds_the_need() {
         exposure_s: 0.01,
         ..demo::pasture_survey().setup()
     };
-    for axis in [Axis::Height, Axis::GroundDistance] {
+    for axis in AXES {
         let reach = Sweep::new(setup, axis).reach(0.05);
         match reach {
             Reach::Nowhere { forbidden_by, best_m } => {
@@ -155,49 +288,10 @@ fn nowhere_names_motion_when_the_smear_alone_exceeds_the_need() {
 fn focal_needed_meets_the_need_when_evaluated_again() {
     let mut seen = [0usize; 2];
     for (name, base) in bases() {
-        let e = evaluate(&base);
         for need in NEEDS {
-            let case = format!("{name}, need {need} m");
-            match focal_needed(&e, &base, need) {
-                FocalNeed::AtLeast { focal_m, bound_by } => {
-                    seen[0] += 1;
-                    let at = evaluate(&Setup { focal_m, ..base });
-                    assert!(
-                        at.limit_m <= need * (1.0 + 1e-12),
-                        "{case}: {} at f = {focal_m}",
-                        at.limit_m
-                    );
-                    let value = at.limits.get(bound_by);
-                    assert!(
-                        (value - need).abs() <= 1e-12 * need,
-                        "{case}: {bound_by:?} is {value} at f = {focal_m}"
-                    );
-                    let shorter = evaluate(&Setup {
-                        focal_m: focal_m * (1.0 - STEP),
-                        ..base
-                    });
-                    assert!(shorter.limit_m > need, "{case}: a shorter lens also meets the need");
-                    // Longer lenses at the same f-number meet it too.
-                    let longer = evaluate(&Setup {
-                        focal_m: focal_m * 10.0,
-                        ..base
-                    });
-                    assert!(longer.limit_m <= need, "{case}: a longer lens fails");
-                }
-                FocalNeed::Impossible { forbidden_by } => {
-                    seen[1] += 1;
-                    assert!(
-                        matches!(forbidden_by, Limit::Turbulence | Limit::Motion),
-                        "{case}: {forbidden_by:?}"
-                    );
-                    assert!(e.limits.get(forbidden_by) > need, "{case}");
-                    // However long the lens, the need stays out of reach.
-                    let huge = evaluate(&Setup {
-                        focal_m: base.focal_m * 1e6,
-                        ..base
-                    });
-                    assert!(huge.limit_m > need, "{case}: met with a huge lens");
-                }
+            match check_focal(&base, need) {
+                Ok(kind) => seen[kind] += 1,
+                Err(problem) => panic!("{name}, need {need} m: {problem}"),
             }
         }
     }
@@ -228,8 +322,7 @@ fn focal_needed_of_a_worked_example() {
         speed_mps: 0.0,
         exposure_s: 0.001,
     };
-    let need = focal_needed(&evaluate(&setup), &setup, 0.01);
-    match need {
+    match focal_needed(&evaluate(&setup), &setup, 0.01) {
         FocalNeed::AtLeast { focal_m, bound_by } => {
             assert!((focal_m - 0.024).abs() < 1e-15, "{focal_m}");
             assert_eq!(bound_by, Limit::Sampling);
@@ -250,65 +343,21 @@ fn focal_needed_of_a_worked_example() {
         other => panic!("expected AtLeast, got {other:?}"),
     }
     for bad in [0.0, -1.0, f64::NAN] {
-        assert!(
-            matches!(
-                focal_needed(&evaluate(&setup), &setup, bad),
-                FocalNeed::Impossible { .. }
-            ),
-            "need {bad}"
-        );
+        let answer = focal_needed(&evaluate(&setup), &setup, bad);
+        assert!(matches!(answer, FocalNeed::Impossible { .. }), "need {bad}: {answer:?}");
     }
 }
 
 #[test]
 fn crossings_have_the_two_limits_equal_there() {
-    let pairs = [
-        (Limit::Turbulence, Limit::Sampling),
-        (Limit::Diffraction, Limit::Sampling),
-        (Limit::Turbulence, Limit::Diffraction),
-        (Limit::Motion, Limit::Sampling),
-    ];
     let mut crossings = 0;
     for (name, base) in bases() {
-        for axis in [Axis::Height, Axis::GroundDistance] {
+        for axis in AXES {
             let sweep = Sweep::new(base, axis);
-            for (a, b) in pairs {
-                let case = format!("{name}, {axis:?}, {a:?} × {b:?}");
-                match sweep.crossing(a, b) {
-                    Crossing::At {
-                        position_m,
-                        larger_below,
-                        larger_above,
-                    } => {
-                        crossings += 1;
-                        let at = evaluate(&sweep.setup_at(position_m));
-                        let (va, vb) = (at.limits.get(a), at.limits.get(b));
-                        assert!(
-                            (va - vb).abs() <= 1e-6 * va.max(vb),
-                            "{case}: {va:e} vs {vb:e} at {position_m}"
-                        );
-                        let below = evaluate(&sweep.setup_at(position_m * (1.0 - 1e-4)));
-                        let above = evaluate(&sweep.setup_at(position_m * (1.0 + 1e-4)));
-                        let other = |l: Limit| if l == a { b } else { a };
-                        assert!(
-                            below.limits.get(larger_below) >= below.limits.get(other(larger_below)),
-                            "{case}: below"
-                        );
-                        assert!(
-                            above.limits.get(larger_above) >= above.limits.get(other(larger_above)),
-                            "{case}: above"
-                        );
-                        assert_ne!(larger_below, larger_above, "{case}");
-                    }
-                    Crossing::Never { larger } => {
-                        let other = if larger == a { b } else { a };
-                        for (x, e) in sweep.table() {
-                            assert!(
-                                e.limits.get(larger) >= e.limits.get(other) * (1.0 - 1e-12),
-                                "{case}: {other:?} is larger at {x}"
-                            );
-                        }
-                    }
+            for (a, b) in PAIRS {
+                match check_crossing(&sweep, a, b) {
+                    Ok(crossed) => crossings += usize::from(crossed),
+                    Err(problem) => panic!("{name}, {axis:?}, {a:?} × {b:?}: {problem}"),
                 }
             }
         }
@@ -316,51 +365,16 @@ fn crossings_have_the_two_limits_equal_there() {
     assert!(crossings > 0);
 }
 
-/// Checks a sweep's envelope changes: the limits are equal at each change, the changes chain
-/// (each `to` is the next `from`), and on a grid ten times finer than the solve's own table the
-/// governing limit is the one the changes predict (away from the changes themselves).
-fn check_envelope(case: &str, sweep: &Sweep) -> usize {
-    let changes = sweep.envelope_changes();
-    for change in &changes {
-        let at = evaluate(&sweep.setup_at(change.position_m));
-        let (from, to) = (at.limits.get(change.from), at.limits.get(change.to));
-        assert!(
-            (from - to).abs() <= 1e-6 * from.max(to),
-            "{case}: {:?} {from:e} vs {:?} {to:e} at {}",
-            change.from,
-            change.to,
-            change.position_m
-        );
-    }
-    for pair in changes.windows(2) {
-        assert_eq!(pair[0].to, pair[1].from, "{case}: {changes:?}");
-        assert!(pair[0].position_m < pair[1].position_m, "{case}: {changes:?}");
-    }
-    let (lo, hi) = sweep.axis.domain();
-    let first = evaluate(&sweep.setup_at(lo)).governing;
-    for i in 0..=2000 {
-        let x = lo * (hi / lo).powf(i as f64 / 2000.0);
-        let near_a_change = changes.iter().any(|c| (x / c.position_m - 1.0).abs() < 1e-6);
-        if near_a_change {
-            continue;
-        }
-        let predicted = changes
-            .iter()
-            .take_while(|c| c.position_m < x)
-            .last()
-            .map_or(first, |c| c.to);
-        let governing = evaluate(&sweep.setup_at(x)).governing;
-        assert_eq!(governing, predicted, "{case}: at {x} m, changes {changes:?}");
-    }
-    changes.len()
-}
-
 #[test]
 fn envelope_changes_where_the_two_limits_are_equal() {
     let mut changes = 0;
     for (name, base) in bases() {
-        for axis in [Axis::Height, Axis::GroundDistance] {
-            changes += check_envelope(&format!("{name}, {axis:?}"), &Sweep::new(base, axis));
+        for axis in AXES {
+            // The governing limit is checked on a grid ten times finer than the solve's table.
+            match check_envelope(&Sweep::new(base, axis), 2000) {
+                Ok(n) => changes += n,
+                Err(problem) => panic!("{name}, {axis:?}: {problem}"),
+            }
         }
     }
     assert!(changes > 0);
@@ -388,75 +402,16 @@ fn envelope_keeps_a_brief_lead_between_two_table_points() {
         exposure_s: 0.005790549606693558,
     };
     let sweep = Sweep::new(setup, Axis::Height);
-    check_envelope("brief sampling lead", &sweep);
-    let between: Vec<_> = sweep
+    if let Err(problem) = check_envelope(&sweep, 2000) {
+        panic!("{problem}");
+    }
+    let below_100: Vec<_> = sweep
         .envelope_changes()
         .into_iter()
         .filter(|c| c.position_m < 100.0)
         .collect();
-    assert_eq!(between.len(), 2, "{between:?}");
+    assert_eq!(below_100.len(), 2, "{below_100:?}");
     assert_eq!(evaluate(&sweep.setup_at(65.0)).governing, Limit::Sampling);
-}
-
-// ---------------------------------------------------------------------------------------------
-// The same checks on random setups across the valid ranges of the scenario
-// ---------------------------------------------------------------------------------------------
-
-/// log-uniform in [lo, hi].
-fn log_range(lo: f64, hi: f64) -> impl Strategy<Value = f64> {
-    (0.0f64..=1.0).prop_map(move |u| (lo * (hi / lo).powf(u)).clamp(lo, hi))
-}
-
-fn any_profile() -> impl Strategy<Value = Profile> {
-    prop_oneof![
-        Just(Profile::None),
-        Just(Profile::HV57),
-        Just(Profile::SlcDay),
-        Just(Profile::SlcNight),
-        (log_range(1e-18, 1e-11), -3.0f64..=0.0).prop_map(|(c, e)| Profile::PowerLaw {
-            cn2_at_1m: c,
-            exponent: e
-        }),
-    ]
-}
-
-fn any_setup() -> impl Strategy<Value = Setup> {
-    let optics = (
-        log_range(0.1, 200.0),
-        16u32..=100_000,
-        log_range(0.5, 5000.0),
-        log_range(0.5, 64.0),
-        log_range(200.0, 20_000.0),
-    );
-    let place = (
-        log_range(0.1, 20_000.0),
-        prop_oneof![log_range(1.0, 100_000.0), Just(0.0)],
-        0.0f64..=85.0,
-        any::<bool>(),
-    );
-    let motion = (prop_oneof![Just(0.0), log_range(0.1, 150.0)], log_range(1e-6, 10.0));
-    (optics, place, any_profile(), motion).prop_map(
-        |((sw, cols, focal, fnum, wl), (h, gd, tilt, use_tilt), profile, (speed, shutter))| Setup {
-            sensor_width_m: sw * 1e-3,
-            sensor_height_m: sw * 1e-3,
-            cols,
-            rows: cols,
-            focal_m: focal * 1e-3,
-            f_number: fnum,
-            wavelength_m: wl * 1e-9,
-            geometry: if use_tilt {
-                Geometry::tilted(h, tilt.to_radians())
-            } else {
-                Geometry {
-                    height_m: h,
-                    ground_distance_m: gd,
-                }
-            },
-            profile,
-            speed_mps: speed,
-            exposure_s: shutter,
-        },
-    )
 }
 
 proptest! {
@@ -466,59 +421,21 @@ proptest! {
         ..ProptestConfig::default()
     })]
 
+    /// The same checks on random setups across the valid ranges of the scenario.
     #[test]
-    fn solves_hold_on_random_setups(setup in any_setup(), need in log_range(1e-4, 1000.0)) {
-        for axis in [Axis::Height, Axis::GroundDistance] {
+    fn solves_hold_on_random_setups(setup in common::any_setup(), need in common::log_range(1e-4, 1000.0)) {
+        for axis in AXES {
             let sweep = Sweep::new(setup, axis);
-            let (lo, hi) = axis.domain();
-            match sweep.reach(need) {
-                Reach::UpTo { position_m, bound_by } => {
-                    prop_assert!((lo..=hi).contains(&position_m));
-                    prop_assert!(meets(&sweep, position_m * (1.0 - STEP), need), "{:?}: fails below {}", axis, position_m);
-                    let beyond = evaluate(&sweep.setup_at(position_m * (1.0 + STEP)));
-                    prop_assert!(beyond.limit_m > need, "{:?}: met above {}", axis, position_m);
-                    prop_assert_eq!(beyond.governing, bound_by);
-                }
-                Reach::Everywhere { up_to_m } => {
-                    prop_assert_eq!(up_to_m, hi);
-                    prop_assert!(meets(&sweep, hi, need));
-                }
-                Reach::Nowhere { forbidden_by, .. } => {
-                    let closest = evaluate(&sweep.setup_at(lo));
-                    prop_assert!(!meets(&sweep, lo, need));
-                    if closest.limits.motion > need {
-                        prop_assert_eq!(forbidden_by, Limit::Motion);
-                    }
-                }
+            let reach = check_reach(&sweep, need, 0);
+            prop_assert!(reach.is_ok(), "{:?}, reach: {:?}", axis, reach);
+            for (a, b) in PAIRS {
+                let crossing = check_crossing(&sweep, a, b);
+                prop_assert!(crossing.is_ok(), "{:?}, {:?} × {:?}: {:?}", axis, a, b, crossing);
             }
-            for (a, b) in [(Limit::Turbulence, Limit::Sampling), (Limit::Diffraction, Limit::Sampling)] {
-                if let Crossing::At { position_m, .. } = sweep.crossing(a, b) {
-                    let at = evaluate(&sweep.setup_at(position_m));
-                    let (va, vb) = (at.limits.get(a), at.limits.get(b));
-                    prop_assert!((va - vb).abs() <= 1e-6 * va.max(vb), "{:?} {:?}×{:?}: {} vs {} at {}", axis, a, b, va, vb, position_m);
-                }
-            }
-            let changes = sweep.envelope_changes();
-            for change in &changes {
-                let at = evaluate(&sweep.setup_at(change.position_m));
-                let (from, to) = (at.limits.get(change.from), at.limits.get(change.to));
-                prop_assert!((from - to).abs() <= 1e-6 * from.max(to), "{:?}: {:?}", axis, change);
-            }
-            for pair in changes.windows(2) {
-                prop_assert_eq!(pair[0].to, pair[1].from, "{:?}: {:?}", axis, changes);
-            }
+            let envelope = check_envelope(&sweep, 0);
+            prop_assert!(envelope.is_ok(), "{:?}, envelope: {:?}", axis, envelope);
         }
-        let e = evaluate(&setup);
-        match focal_needed(&e, &setup, need) {
-            FocalNeed::AtLeast { focal_m, .. } => {
-                let at = evaluate(&Setup { focal_m, ..setup });
-                prop_assert!(at.limit_m <= need * (1.0 + 1e-12), "{} at f = {}", at.limit_m, focal_m);
-                let shorter = evaluate(&Setup { focal_m: focal_m * (1.0 - STEP), ..setup });
-                prop_assert!(shorter.limit_m > need);
-            }
-            FocalNeed::Impossible { forbidden_by } => {
-                prop_assert!(e.limits.get(forbidden_by) > need);
-            }
-        }
+        let focal = check_focal(&setup, need);
+        prop_assert!(focal.is_ok(), "focal: {:?}", focal);
     }
 }

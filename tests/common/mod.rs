@@ -1,0 +1,93 @@
+//! Generators shared by the property tests of several test files.
+//!
+//! Each test file is its own crate and uses only some of these, hence the `dead_code` allowance.
+#![allow(dead_code)]
+
+use proptest::prelude::*;
+use sharpfield::core::engine::Setup;
+use sharpfield::core::geometry::Geometry;
+use sharpfield::core::turbulence::Profile;
+
+/// Log-uniform in [lo, hi], ends included.
+pub fn log_range(lo: f64, hi: f64) -> impl Strategy<Value = f64> {
+    (0.0f64..=1.0).prop_map(move |u| (lo * (hi / lo).powf(u)).clamp(lo, hi))
+}
+
+/// One profile of each kind the scenario offers, by name, for the named (non-random) cases.
+pub fn named_profiles() -> [(&'static str, Profile); 6] {
+    [
+        ("none", Profile::None),
+        ("HV 5/7", Profile::HV57),
+        ("SLC-Day", Profile::SlcDay),
+        ("SLC-Night", Profile::SlcNight),
+        (
+            "power −4/3, 1e−13",
+            Profile::PowerLaw {
+                cn2_at_1m: 1e-13,
+                exponent: -4.0 / 3.0,
+            },
+        ),
+        (
+            "power −2/3, 1e−12",
+            Profile::PowerLaw {
+                cn2_at_1m: 1e-12,
+                exponent: -2.0 / 3.0,
+            },
+        ),
+    ]
+}
+
+/// Any turbulence profile the scenario can ask for, with the power law over its whole valid range.
+pub fn any_profile() -> impl Strategy<Value = Profile> {
+    prop_oneof![
+        Just(Profile::None),
+        Just(Profile::HV57),
+        Just(Profile::SlcDay),
+        Just(Profile::SlcNight),
+        (log_range(1e-18, 1e-11), -3.0f64..=0.0).prop_map(|(c, e)| Profile::PowerLaw {
+            cn2_at_1m: c,
+            exponent: e
+        }),
+    ]
+}
+
+/// Any engine setup within the scenario's valid ranges (`scenario::NUMBER_SPECS`, in SI): the
+/// target placed by ground distance (0 or 1 m to 100 km) or by tilt (0–85°).
+pub fn any_setup() -> impl Strategy<Value = Setup> {
+    let optics = (
+        log_range(0.1, 200.0),
+        16u32..=100_000,
+        log_range(0.5, 5000.0),
+        log_range(0.5, 64.0),
+        log_range(200.0, 20_000.0),
+    );
+    let place = (
+        log_range(0.1, 20_000.0),
+        prop_oneof![log_range(1.0, 100_000.0), Just(0.0)],
+        0.0f64..=85.0,
+        any::<bool>(),
+    );
+    let motion = (prop_oneof![Just(0.0), log_range(0.1, 150.0)], log_range(1e-6, 10.0));
+    (optics, place, any_profile(), motion).prop_map(
+        |((sw, cols, focal, fnum, wl), (h, gd, tilt, use_tilt), profile, (speed, shutter))| Setup {
+            sensor_width_m: sw * 1e-3,
+            sensor_height_m: sw * 1e-3,
+            cols,
+            rows: cols,
+            focal_m: focal * 1e-3,
+            f_number: fnum,
+            wavelength_m: wl * 1e-9,
+            geometry: if use_tilt {
+                Geometry::tilted(h, tilt.to_radians())
+            } else {
+                Geometry {
+                    height_m: h,
+                    ground_distance_m: gd,
+                }
+            },
+            profile,
+            speed_mps: speed,
+            exposure_s: shutter,
+        },
+    )
+}
