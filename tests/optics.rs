@@ -34,7 +34,7 @@ fn root(f: impl Fn(f64) -> f64, mut lo: f64, mut hi: f64) -> f64 {
     0.5 * (lo + hi)
 }
 
-/// The Airy pattern [2J1(x)/x]², normalised to 1 at the centre (Born & Wolf §8.5.2).
+/// The Airy pattern [2J1(x)/x]², normalised to 1 at the centre (Born & Wolf §8.5; resolution-model §2).
 fn airy(x: f64) -> f64 {
     if x.abs() < 1e-8 {
         1.0
@@ -54,7 +54,8 @@ fn airy_second_derivative(x: f64) -> f64 {
     2.0 * (g1 * g1 + g * g2)
 }
 
-/// Energy inside radius x of the Airy pattern: 1 − J0²(x) − J1²(x) (Rayleigh 1881; Born & Wolf §8.5.2).
+/// Energy inside radius x of the Airy pattern: 1 − J0²(x) − J1²(x) (resolution-model §2; Born & Wolf
+/// §8.5; attributed to Rayleigh, from memory).
 fn encircled_energy(x: f64) -> f64 {
     let (j0, j1) = (libm::j0(x), libm::j1(x));
     1.0 - j0 * j0 - j1 * j1
@@ -67,11 +68,12 @@ fn in_lambda_over_d(x: f64) -> f64 {
 
 #[test]
 fn first_zero_of_j1_is_a_zero_of_libm_j1() {
-    // Abramowitz & Stegun Table 9.5: j1,1 = 3.8317059702075125; libm as the independent reference.
+    // j1,1 = 3.8317059702075125 (resolution-model §2; the engine cites Abramowitz & Stegun Table
+    // 9.5); libm as the independent reference.
     check("J1(j11)", libm::j1(J1_FIRST_ZERO), 0.0, 1e-15);
     let libm_zero = root(libm::j1, 3.0, 4.5);
     check("zero of libm::j1 near 3.83", J1_FIRST_ZERO, libm_zero, 4e-15);
-    check("j11 (A&S Table 9.5)", J1_FIRST_ZERO, 3.831_705_970_207_512_5, 0.0);
+    check("j11 (resolution-model §2)", J1_FIRST_ZERO, 3.831_705_970_207_512_5, 0.0);
 }
 
 #[test]
@@ -130,7 +132,7 @@ fn airy_full_width_at_half_maximum() {
 #[test]
 fn airy_encircled_energy() {
     // Published: half the energy within 0.5348321477242647 λ/D; 0.8377848691733143 inside the
-    // first dark ring (resolution-model §2; Born & Wolf §8.5.2).
+    // first dark ring (resolution-model §2; Born & Wolf §8.5).
     let half = root(|x| encircled_energy(x) - 0.5, 0.5, 3.0);
     check(
         "EE 50 % radius (λ/D)",
@@ -148,8 +150,8 @@ fn airy_encircled_energy() {
     check("EE far out tends to 1", encircled_energy(1000.0), 1.0, 1e-3);
 }
 
-/// J_n(x) by its power series Σ (−1)^m (x/2)^(2m+n) / (m!(m+n)!) (Abramowitz & Stegun 9.1.10),
-/// accurate to rounding for the small arguments used here; independent of `libm`.
+/// J_n(x) by its power series Σ (−1)^m (x/2)^(2m+n) / (m!(m+n)!) (the textbook series, from
+/// memory), accurate to rounding for the small arguments used here; independent of `libm`.
 fn bessel_series(n: i32, x: f64) -> f64 {
     let half = x / 2.0;
     let mut term = half.powi(n) / (1..=n).map(f64::from).product::<f64>();
@@ -164,7 +166,7 @@ fn bessel_series(n: i32, x: f64) -> f64 {
 #[test]
 fn sparrow_limit_is_where_the_midpoint_dip_vanishes() {
     // Two equal incoherent points at spacing s: the sum has zero curvature at the midpoint when
-    // the Airy pattern has an inflection point at s/2 (Sparrow 1916).
+    // the Airy pattern has an inflection point at s/2 (Sparrow's criterion; resolution-model §2).
     let inflection = root(airy_second_derivative, 1.0, 2.0);
     let sparrow = in_lambda_over_d(2.0 * inflection);
     // The same root with J1, J2, J3 from their power series instead of libm.
