@@ -85,8 +85,7 @@ fn geographiclib_direct_problem_geodsolve1() {
     // "GeodSolve1"), the JFK-to-Paris example of the GeodSolve manual: from 40.63972222° N,
     // 73.77888889° W at azimuth 53.5° for 5850 km → 49.01467° N, 2.56106° E, azimuth 111.62947°,
     // checked there to ±0.5e-5°.
-    let (lat2, lon2, azi2): (f64, f64, f64) =
-        Geodesic::wgs84().direct(40.63972222, -73.77888889, 53.5, 5850e3);
+    let (lat2, lon2, azi2): (f64, f64, f64) = Geodesic::wgs84().direct(40.63972222, -73.77888889, 53.5, 5850e3);
     close(lat2, 49.01467, 0.5e-5);
     close(lon2, 2.56106, 0.5e-5);
     close(azi2, 111.62947, 0.5e-5);
@@ -99,12 +98,8 @@ fn geographiclib_direct_problem_geodsolve1() {
 fn geographiclib_direct_problem_reference_case() {
     // Source: GeographicLib's test suite, first of its reference cases (testcases[0] in geodtest.c
     // and test_geodesic.py; Karney's GeodTest data): lat1, lon1, azi1, s12 → lat2, lon2, azi2.
-    let (lat2, lon2, azi2): (f64, f64, f64) = Geodesic::wgs84().direct(
-        35.60777,
-        -139.44815,
-        111.098748429560326,
-        8935244.5604818305,
-    );
+    let (lat2, lon2, azi2): (f64, f64, f64) =
+        Geodesic::wgs84().direct(35.60777, -139.44815, 111.098748429560326, 8935244.5604818305);
     close(lat2, -11.17491, 1e-12);
     close(lon2, -69.95921, 1e-12);
     close(azi2, 129.289270889708762, 1e-12);
@@ -134,10 +129,7 @@ fn demo_export_is_a_feature_collection_in_lon_lat_order() {
     // Closed (RFC 7946 §3.1.6: first and last positions equivalent), four corners.
     assert_eq!(ring.len(), 5);
     assert_eq!(ring[0], ring[4]);
-    assert!(
-        signed_area_deg2(&ring) > 0.0,
-        "the outer ring runs counter-clockwise"
-    );
+    assert!(signed_area_deg2(&ring) > 0.0, "the outer ring runs counter-clockwise");
     let features = v["features"].as_array().unwrap();
     assert_eq!(features.len() as u64, 1 + plan(&s).lines.unwrap());
 }
@@ -168,10 +160,7 @@ fn corners_measure_the_area_on_the_ellipsoid() {
                 close(distance(c, d), width, 1e-3);
                 close(distance(d, a), length, 1e-3);
                 if width > 1.0 {
-                    assert!(
-                        angle_between(azimuth(a, b), heading + 90.0) < 1e-6,
-                        "{case}"
-                    );
+                    assert!(angle_between(azimuth(a, b), heading + 90.0) < 1e-6, "{case}");
                     assert!(angle_between(azimuth(a, d), heading) < 1e-6, "{case}");
                 }
             }
@@ -205,10 +194,7 @@ fn flight_lines_follow_the_plan() {
         // of the meridians, about Δλ·sin φ: 0.001° at line 5 here, well inside 0.01°.
         let flown = azimuth(ends[0], ends[1]);
         let expected = if forward { 0.0 } else { 180.0 };
-        assert!(
-            angle_between(flown, expected) < 0.01,
-            "line {number} flown at {flown}"
-        );
+        assert!(angle_between(flown, expected) < 0.01, "line {number} flown at {flown}");
         let stated = line["properties"]["azimuth_deg"].as_f64().unwrap();
         assert!(angle_between(stated, flown) < 1e-6);
         starts.push(if forward { ends[0] } else { ends[1] });
@@ -304,10 +290,7 @@ fn areas_the_export_cannot_draw_are_refused() {
         area_length_m: Some(100_000.0),
         ..pasture_survey()
     };
-    assert_eq!(
-        survey_geojson_checked(&s, &plan(&s)),
-        Err(ExportProblem::NearPole)
-    );
+    assert_eq!(survey_geojson_checked(&s, &plan(&s)), Err(ExportProblem::NearPole));
     // The same field at 89° N is fine.
     let s = Scenario {
         latitude_deg: Some(89.0),
@@ -339,10 +322,7 @@ fn the_scenario_name_is_escaped_by_the_json_writer() {
         ..pasture_survey()
     };
     let v = export(&s);
-    assert_eq!(
-        v["features"][0]["properties"]["name"],
-        "Field \"B\" <north>\n"
-    );
+    assert_eq!(v["features"][0]["properties"]["name"], "Field \"B\" <north>\n");
 }
 
 proptest! {

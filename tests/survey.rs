@@ -106,10 +106,7 @@ fn nptel_example_1_photos_as_the_example_counts_them() {
     let extras_per_line = 2 + 2;
     let with_extras = adjusted.photos_per_line.map(|p| p + extras_per_line);
     assert_eq!(with_extras, Some(48));
-    assert_eq!(
-        with_extras.zip(adjusted.lines).map(|(p, n)| p * n),
-        Some(960)
-    );
+    assert_eq!(with_extras.zip(adjusted.lines).map(|(p, n)| p * n), Some(960));
     // The planner's own total has no extras: 44 × 20.
     assert_eq!(adjusted.photos, Some(880));
 }
@@ -165,10 +162,7 @@ fn an_exact_multiple_does_not_gain_a_station_from_rounding() {
         area_length_m: Some(80.0),
         ..pasture_survey()
     });
-    assert!(
-        80.0 / p.base_m > 10.0,
-        "the rounding this test is about did not occur"
-    );
+    assert!(80.0 / p.base_m > 10.0, "the rounding this test is about did not occur");
     assert_eq!(p.photos_per_line, Some(11));
 }
 
@@ -209,10 +203,7 @@ fn speed_zero_leaves_time_out_with_a_note() {
     assert_eq!(p.trigger_s, None);
     assert_eq!(p.flight_time_s, None);
     assert_eq!(p.batteries, None);
-    assert!(
-        p.lines.is_some() && p.photos.is_some(),
-        "counts do not need a speed"
-    );
+    assert!(p.lines.is_some() && p.photos.is_some(), "counts do not need a speed");
     assert!(has_note(&p, "ground speed is 0"));
     assert!(p.speed_flags.is_empty());
 }
@@ -296,10 +287,7 @@ fn absurd_counts_are_withheld_with_a_note() {
     let p = plan(&s);
     assert_eq!((p.lines, p.photos_per_line, p.photos), (None, None, None));
     assert!(has_note(&p, &format!("More than {MAX_LINES} flight lines")));
-    assert!(has_note(
-        &p,
-        &format!("More than {MAX_PHOTOS} photos on each line")
-    ));
+    assert!(has_note(&p, &format!("More than {MAX_PHOTOS} photos on each line")));
     assert!(layout(&p, &s).is_none());
 
     // Lines and photos per line within their caps, the total above.
@@ -377,12 +365,7 @@ fn layout_of_the_demo_field() {
     // The bounds hold everything drawn.
     let b = l.bounds;
     for r in std::iter::once(l.area).chain(f.iter().map(|f| f.rect)) {
-        assert!(
-            r.x >= b.x
-                && r.y >= b.y
-                && r.x + r.width <= b.x + b.width
-                && r.y + r.height <= b.y + b.height
-        );
+        assert!(r.x >= b.x && r.y >= b.y && r.x + r.width <= b.x + b.width && r.y + r.height <= b.y + b.height);
     }
 }
 
@@ -423,12 +406,7 @@ fn small_areas_keep_the_plus_one_convention() {
 /// Every number in the plan is finite, counts keep within their caps, and the plan writes as JSON.
 fn check_sane(s: &Scenario) {
     let p = plan(s);
-    let mut numbers = vec![
-        p.footprint_across_m,
-        p.footprint_along_m,
-        p.base_m,
-        p.line_spacing_m,
-    ];
+    let mut numbers = vec![p.footprint_across_m, p.footprint_along_m, p.base_m, p.line_spacing_m];
     numbers.extend(
         [
             p.trigger_s,
@@ -444,9 +422,7 @@ fn check_sane(s: &Scenario) {
     numbers.extend(p.speed_flags.iter().map(|f| f.limit_mps));
     assert!(numbers.iter().all(|v| v.is_finite()), "{p:?}");
     assert!(p.lines.is_none_or(|n| (1..=MAX_LINES).contains(&n)));
-    assert!(p
-        .photos_per_line
-        .is_none_or(|n| (1..=MAX_PHOTOS).contains(&n)));
+    assert!(p.photos_per_line.is_none_or(|n| (1..=MAX_PHOTOS).contains(&n)));
     assert!(p.photos.is_none_or(|n| n <= MAX_PHOTOS));
     if let (Some(n), Some(k), Some(t)) = (p.lines, p.photos_per_line, p.photos) {
         assert_eq!(n * k, t);
@@ -463,15 +439,7 @@ fn check_sane(s: &Scenario) {
 #[test]
 fn extreme_inputs_stay_finite() {
     let base = pasture_survey();
-    let odd = [
-        0.0,
-        -1.0,
-        1e-300,
-        1e300,
-        f64::NAN,
-        f64::INFINITY,
-        f64::NEG_INFINITY,
-    ];
+    let odd = [0.0, -1.0, 1e-300, 1e300, f64::NAN, f64::INFINITY, f64::NEG_INFINITY];
     for v in odd {
         check_sane(&Scenario {
             height_m: v,

@@ -84,8 +84,9 @@ impl Library {
             Ok(v) => v,
             Err(e) => {
                 out.kept_aside.push(text.to_string());
-                out.messages
-                    .push(format!("The saved scenarios could not be read ({e}); they were kept aside unchanged."));
+                out.messages.push(format!(
+                    "The saved scenarios could not be read ({e}); they were kept aside unchanged."
+                ));
                 return out;
             }
         };
@@ -105,15 +106,17 @@ impl Library {
                     Some(Value::Array(items)) => items.clone(),
                     _ => {
                         out.kept_aside.push(text.to_string());
-                        out.messages
-                            .push("The saved scenarios have no list of scenarios; the text was kept aside.".to_string());
+                        out.messages.push(
+                            "The saved scenarios have no list of scenarios; the text was kept aside.".to_string(),
+                        );
                         return out;
                     }
                 }
             }
             _ => {
                 out.kept_aside.push(text.to_string());
-                out.messages.push("The saved scenarios are not in a known shape; the text was kept aside.".to_string());
+                out.messages
+                    .push("The saved scenarios are not in a known shape; the text was kept aside.".to_string());
                 return out;
             }
         };
@@ -148,7 +151,11 @@ impl Library {
     /// A name not yet used: `name`, else `name (2)`, `name (3)`…
     pub fn unique_name(&self, name: &str) -> String {
         let base = clip(name, NAME_MAX);
-        let base = if base.is_empty() { "Untitled scenario".to_string() } else { base };
+        let base = if base.is_empty() {
+            "Untitled scenario".to_string()
+        } else {
+            base
+        };
         if !self.scenarios.iter().any(|s| s.name == base) {
             return base;
         }
@@ -178,7 +185,9 @@ impl Library {
 
     /// Renames a scenario (to a unique name); false when there is no such id.
     pub fn rename(&mut self, id: &str, name: &str) -> bool {
-        let Some(index) = self.scenarios.iter().position(|s| s.id == id) else { return false };
+        let Some(index) = self.scenarios.iter().position(|s| s.id == id) else {
+            return false;
+        };
         let mut others = self.clone();
         others.scenarios.remove(index);
         let name = others.unique_name(name);

@@ -41,7 +41,11 @@ pub fn print_sheet(props: &PrintProps) -> Html {
     let len = |m: f64| format::length(m, units);
     let link = {
         let href = browser::location_href();
-        format!("{}?{}", href.split('?').next().unwrap_or_default(), props.state.raw.to_query())
+        format!(
+            "{}?{}",
+            href.split('?').next().unwrap_or_default(),
+            props.state.raw.to_query()
+        )
     };
     let date = browser::now_iso().get(..10).unwrap_or_default().to_string();
     let crossings: Vec<f64> = r.envelope_changes.iter().map(|c| c.position_m).collect();
@@ -52,19 +56,54 @@ pub fn print_sheet(props: &PrintProps) -> Html {
         Offset::Tilt(t) => format!("tilted {}° from straight down", format::significant(t)),
     };
     let inputs: Vec<(&str, String)> = vec![
-        ("Camera", format!("{} × {} mm sensor, {} × {} pixels, pitch {} µm", format::significant(s.sensor_width_mm), format::significant(s.sensor_height_mm), s.cols, s.rows, format::significant(r.pitch_m * 1e6))),
-        ("Lens", format!("{} mm at f/{}", format::significant(s.focal_mm), format::significant(s.f_number))),
+        (
+            "Camera",
+            format!(
+                "{} × {} mm sensor, {} × {} pixels, pitch {} µm",
+                format::significant(s.sensor_width_mm),
+                format::significant(s.sensor_height_mm),
+                s.cols,
+                s.rows,
+                format::significant(r.pitch_m * 1e6)
+            ),
+        ),
+        (
+            "Lens",
+            format!(
+                "{} mm at f/{}",
+                format::significant(s.focal_mm),
+                format::significant(s.f_number)
+            ),
+        ),
         ("Band", format!("{} nm", format::significant(s.wavelength_nm))),
-        ("Geometry", format!("height {}, {view}; slant range {}", len(s.height_m), len(r.slant_range_m))),
+        (
+            "Geometry",
+            format!(
+                "height {}, {view}; slant range {}",
+                len(s.height_m),
+                len(r.slant_range_m)
+            ),
+        ),
         ("Air", air_words(s.air, s.cn2_at_1m)),
-        ("Motion", format!("{}, exposure {} s", format::speed(s.speed_mps, units), format::significant(s.shutter_s))),
+        (
+            "Motion",
+            format!(
+                "{}, exposure {} s",
+                format::speed(s.speed_mps, units),
+                format::significant(s.shutter_s)
+            ),
+        ),
     ];
     let reach = match (r.need_m, r.reach) {
-        (Some(need), Some(reach)) => describe_reach(&reach, plan.sweep.axis, &format!("A detail of {}", len(need)), len),
+        (Some(need), Some(reach)) => {
+            describe_reach(&reach, plan.sweep.axis, &format!("A detail of {}", len(need)), len)
+        }
         _ => "No required resolution was set.".to_string(),
     };
     let survey = &r.survey;
-    let diagram_html = layout(survey, s).map(|l| diagram(&l, units, "print")).unwrap_or_default();
+    let diagram_html = layout(survey, s)
+        .map(|l| diagram(&l, units, "print"))
+        .unwrap_or_default();
     html! {
         <section class="print-sheet" aria-hidden="true">
             <header class="print-head">
