@@ -2,26 +2,16 @@
 //! the exported area and lines against the plan, measured back on the ellipsoid.
 
 use geographiclib_rs::{DirectGeodesic, Geodesic, InverseGeodesic};
+mod common;
+
+use common::{close, plan};
 use proptest::prelude::*;
 use serde_json::Value;
 use sharpfield::core::demo::pasture_survey;
-use sharpfield::core::engine::evaluate;
 use sharpfield::core::geojson::{
     make_counter_clockwise, signed_area_deg2, survey_geojson, survey_geojson_checked, ExportProblem,
 };
 use sharpfield::core::scenario::Scenario;
-use sharpfield::core::survey::{plan_survey, SurveyPlan};
-
-fn plan(scenario: &Scenario) -> SurveyPlan {
-    plan_survey(scenario, &evaluate(&scenario.setup()))
-}
-
-fn close(actual: f64, expected: f64, tolerance: f64) {
-    assert!(
-        (actual - expected).abs() <= tolerance,
-        "{actual} differs from {expected} by more than {tolerance}"
-    );
-}
 
 fn export(scenario: &Scenario) -> Value {
     let text = survey_geojson(scenario, &plan(scenario)).expect("origin and area are given");

@@ -2,26 +2,14 @@
 //! the messages for missing or bad inputs, the layout diagram, and "never NaN, never endless"
 //! properties over extreme inputs.
 
+mod common;
+
+use common::{close, plan};
 use proptest::prelude::*;
 use sharpfield::core::demo::pasture_survey;
-use sharpfield::core::engine::evaluate;
 use sharpfield::core::report::report_json;
 use sharpfield::core::scenario::{Offset, Scenario};
-use sharpfield::core::survey::{
-    layout, overlap_guidance, plan_survey, SurveyPlan, MAX_DRAWN_LINES, MAX_LINES, MAX_PHOTOS,
-};
-
-/// The plan of a scenario, with the engine's evaluation as the report computes it.
-fn plan(scenario: &Scenario) -> SurveyPlan {
-    plan_survey(scenario, &evaluate(&scenario.setup()))
-}
-
-fn close(actual: f64, expected: f64, tolerance: f64) {
-    assert!(
-        (actual - expected).abs() <= tolerance,
-        "{actual} differs from {expected} by more than {tolerance}"
-    );
-}
+use sharpfield::core::survey::{layout, overlap_guidance, SurveyPlan, MAX_DRAWN_LINES, MAX_LINES, MAX_PHOTOS};
 
 fn has_note(plan: &SurveyPlan, words: &str) -> bool {
     plan.survey_notes.iter().any(|n| n.contains(words))

@@ -4,8 +4,10 @@
 #![allow(dead_code)]
 
 use proptest::prelude::*;
-use sharpfield::core::engine::Setup;
+use sharpfield::core::engine::{evaluate, Setup};
 use sharpfield::core::geometry::Geometry;
+use sharpfield::core::scenario::Scenario;
+use sharpfield::core::survey::{plan_survey, SurveyPlan};
 use sharpfield::core::turbulence::Profile;
 
 /// Log-uniform in [lo, hi], ends included.
@@ -90,4 +92,17 @@ pub fn any_setup() -> impl Strategy<Value = Setup> {
             exposure_s: shutter,
         },
     )
+}
+
+/// The survey plan of a scenario, with the engine's evaluation as the report computes it.
+pub fn plan(scenario: &Scenario) -> SurveyPlan {
+    plan_survey(scenario, &evaluate(&scenario.setup()))
+}
+
+/// Asserts that `actual` is within `tolerance` of `expected`.
+pub fn close(actual: f64, expected: f64, tolerance: f64) {
+    assert!(
+        (actual - expected).abs() <= tolerance,
+        "{actual} differs from {expected} by more than {tolerance}"
+    );
 }
