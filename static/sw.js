@@ -9,7 +9,11 @@ const PRECACHE = [
 
 self.addEventListener('install', (event) => {
   event.waitUntil(
-    caches.open(CACHE).then((cache) => cache.addAll(PRECACHE)).then(() => self.skipWaiting())
+    // `reload`: fetch every file from the server, never from the HTTP cache, or a host that lets
+    // browsers keep index.html would have the new worker precache the previous build's page.
+    caches.open(CACHE)
+      .then((cache) => cache.addAll(PRECACHE.map((url) => new Request(url, { cache: 'reload' }))))
+      .then(() => self.skipWaiting())
   );
 });
 
