@@ -93,6 +93,17 @@ pub fn now_iso() -> String {
     String::from(js_sys::Date::new_0().to_iso_string())
 }
 
+/// Today's date in the person's own time zone as YYYY-MM-DD, for dating a printed plan.
+pub fn local_date() -> String {
+    let now = js_sys::Date::new_0();
+    format!(
+        "{:04}-{:02}-{:02}",
+        now.get_full_year(),
+        now.get_month() + 1,
+        now.get_date()
+    )
+}
+
 /// Milliseconds since 1970, for unique storage keys.
 pub fn now_ms() -> u64 {
     js_sys::Date::now() as u64

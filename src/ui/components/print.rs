@@ -47,7 +47,8 @@ pub fn print_sheet(props: &PrintProps) -> Html {
             props.state.raw.to_query()
         )
     };
-    let date = browser::now_iso().get(..10).unwrap_or_default().to_string();
+    // The local date: the UTC date of `now_iso` is a day off for much of the day away from UTC.
+    let date = browser::local_date();
     let crossings: Vec<f64> = r.envelope_changes.iter().map(|c| c.position_m).collect();
     let c = chart::build(&plan.sweep, r.need_m, r.reach_m, &crossings, units);
     let view = match s.offset {
