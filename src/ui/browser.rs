@@ -81,6 +81,15 @@ pub fn storage_get(key: &str) -> Result<Option<String>, String> {
         .map_err(|_| "The browser refused to read stored data.".to_string())
 }
 
+/// The first stored key starting with `prefix` whose text is exactly `text`.
+pub fn storage_find(prefix: &str, text: &str) -> Option<String> {
+    let storage = storage().ok()?;
+    (0..storage.length().ok()?)
+        .filter_map(|i| storage.key(i).ok().flatten())
+        .filter(|key| key.starts_with(prefix))
+        .find(|key| storage.get_item(key).ok().flatten().as_deref() == Some(text))
+}
+
 /// Stores a text; the error says why it could not (full, disabled).
 pub fn storage_set(key: &str, value: &str) -> Result<(), String> {
     storage()?

@@ -53,6 +53,11 @@ fn load_saved() -> Saved {
     let mut writable = !newer_version;
     let stamp = browser::now_ms();
     for (i, aside) in kept_aside.iter().enumerate() {
+        // Kept aside on an earlier visit: say where again, but do not add a copy per page load.
+        if let Some(key) = browser::storage_find(KEPT_ASIDE_PREFIX, aside) {
+            messages.push(format!("Kept aside in the browser's storage under “{key}”."));
+            continue;
+        }
         let key = format!("{KEPT_ASIDE_PREFIX}{stamp}.{i}");
         if let Err(problem) = browser::storage_set(&key, aside) {
             writable = false;
