@@ -113,6 +113,20 @@ pub fn local_date() -> String {
     )
 }
 
+/// The local calendar date of an ISO 8601 time, or empty when it cannot be read.
+pub fn local_date_of(iso: &str) -> String {
+    let date = js_sys::Date::new(&wasm_bindgen::JsValue::from_str(iso));
+    if iso.is_empty() || date.get_time().is_nan() {
+        return String::new();
+    }
+    format!(
+        "{:04}-{:02}-{:02}",
+        date.get_full_year(),
+        date.get_month() + 1,
+        date.get_date()
+    )
+}
+
 /// Milliseconds since 1970, for unique storage keys.
 pub fn now_ms() -> u64 {
     js_sys::Date::now() as u64

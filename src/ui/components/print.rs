@@ -99,7 +99,10 @@ pub fn print_sheet(props: &PrintProps) -> Html {
         (Some(need), Some(reach)) => {
             describe_reach(&reach, plan.sweep.axis, &format!("A detail of {}", len(need)), len)
         }
-        _ => "No required resolution was set.".to_string(),
+        _ => match props.state.error("need") {
+            Some(message) => format!("The required resolution was rejected: {message}"),
+            None => "No required resolution was set.".to_string(),
+        },
     };
     let survey = &r.survey;
     let diagram_html = layout(survey, s)

@@ -86,7 +86,7 @@ pub fn results(props: &ResultsProps) -> Html {
                     { format!(", level with {}.", runner_up.title().to_lowercase()) }
                 }
             </p>
-            <p class="advice" data-key="advice">{ format!("To see finer detail: {}", report.advice) }</p>
+            <p class="advice" data-key="advice" data-si={report.advice}>{ format!("To see finer detail: {}", report.advice) }</p>
             <div class="limits">
                 { for Limit::ALL.iter().map(|&limit| {
                     let key = field_of(limit);

@@ -190,17 +190,18 @@ pub fn share_panel(props: &ShareProps) -> Html {
                     let outcome = Library::read(&text);
                     let mut library = saved.library.clone();
                     let added = library.merge(&outcome.library);
-                    let mut message = format!("Imported {added} scenario(s).");
-                    if !outcome.kept_aside.is_empty() {
-                        message.push_str(&format!(
-                            " {} entr(ies) in the file could not be read and were not imported; the file itself is unchanged.",
+                    // The storage wording of `outcome.messages` does not fit an import: nothing is
+                    // kept aside here, the file itself stays as it is.
+                    let message = if outcome.newer_version {
+                        "This file comes from a newer version of Sharpfield; nothing was imported. Update the app to open it.".to_string()
+                    } else if outcome.kept_aside.is_empty() {
+                        format!("Imported {added} scenario(s).")
+                    } else {
+                        format!(
+                            "Imported {added} scenario(s). {} part(s) of the file could not be read and were not imported; the file itself is unchanged.",
                             outcome.kept_aside.len()
-                        ));
-                    }
-                    for m in outcome.messages {
-                        message.push(' ');
-                        message.push_str(&m);
-                    }
+                        )
+                    };
                     commit(library, message);
                 }
                 Err(_) => status.set(Some("The file could not be read.".to_string())),
@@ -287,7 +288,7 @@ pub fn share_panel(props: &ShareProps) -> Html {
                     </form>
                 } else {
                     <span class="saved-name">{ s.name.clone() }</span>
-                    <span class="saved-date">{ s.saved.get(..10).unwrap_or("").to_string() }</span>
+                    <span class="saved-date">{ browser::local_date_of(&s.saved) }</span>
                 }
                 <span class="saved-actions">
                     <button type="button" class="open" onclick={on_open}>{ "Open" }</button>
