@@ -21,6 +21,9 @@ use std::rc::Rc;
 use web_sys::HtmlInputElement;
 use yew::prelude::*;
 
+/// How long typing must pause before the printed sheet follows the scenario (ms).
+const PRINT_SETTLE_MS: u32 = 250;
+
 /// Where the high-contrast preference is kept.
 const THEME_KEY: &str = "sharpfield.theme";
 
@@ -45,6 +48,28 @@ pub fn app() -> Html {
     }
 
     let snapshot: Rc<State> = Rc::new((*state).clone());
+
+    // The printed sheet repeats most of the page; rebuilding it on every keystroke would cost a
+    // frame, so it follows the scenario once typing pauses, and at once when printing is asked for.
+    let printed = use_state(|| snapshot.clone());
+    {
+        let printed = printed.clone();
+        let current = snapshot.clone();
+        use_effect_with(state.raw.clone(), move |_| {
+            let timer = gloo::timers::callback::Timeout::new(PRINT_SETTLE_MS, move || printed.set(current));
+            move || drop(timer)
+        });
+    }
+    let on_print = {
+        let printed = printed.clone();
+        let current = snapshot.clone();
+        Callback::from(move |_: ()| {
+            printed.set(current.clone());
+            // Let the sheet render before the print dialog lays the page out.
+            gloo::timers::callback::Timeout::new(60, browser::print).forget();
+        })
+    };
+
     let report = &snapshot.plan.report;
     let units = snapshot.plan.scenario.units;
 
@@ -112,7 +137,7 @@ pub fn app() -> Html {
         </header>
         <div class="summary" aria-live="polite">
             <span>{ if name.is_empty() { "Untitled scenario".to_string() } else { name.clone() } }</span>
-            <span>{ format!("{} governs: {}", report.governing.title(), format::length(report.limit_m, units)) }</span>
+            <a href="#results">{ format!("{} governs: {}", report.governing.title(), format::length(report.limit_m, units)) }</a>
         </div>
         <main class="layout">
             <form class="inputs" onsubmit={Callback::from(|e: SubmitEvent| e.prevent_default())} aria-label="Scenario inputs">
@@ -146,10 +171,10 @@ pub fn app() -> Html {
                 <SolvePanel state={snapshot.clone()} />
                 <TargetPanel state={snapshot.clone()} />
                 <SurveyPanel state={snapshot.clone()} />
-                <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} />
+                <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} {on_print} />
             </div>
         </main>
-        <PrintSheet state={snapshot.clone()} />
+        <PrintSheet state={(*printed).clone()} />
         <footer class="foot">
             <p>{ "Sharpfield estimates; it does not replace a test flight, local rules or licensed practice. Sources and limits: see the README." }</p>
         </footer>

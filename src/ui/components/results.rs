@@ -81,9 +81,9 @@ pub fn results(props: &ResultsProps) -> Html {
                 <strong>{ format!("{} governs: ", governing.title()) }</strong>
                 { value("limit_m", report.limit_m, format::length(report.limit_m, units)) }
                 if report.governing_margin > 1.0 {
-                    { format!(", {} the next limit ({}).", format::times(report.governing_margin), runner_up.title().to_lowercase()) }
+                    { format!(", {} the next limit, {}.", format::times(report.governing_margin), runner_up.title()) }
                 } else {
-                    { format!(", level with {}.", runner_up.title().to_lowercase()) }
+                    { format!(", level with {}.", runner_up.title()) }
                 }
             </p>
             <p class="advice" data-key="advice" data-si={report.advice}>{ format!("To see finer detail: {}", report.advice) }</p>

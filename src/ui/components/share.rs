@@ -19,6 +19,8 @@ pub const KEPT_ASIDE_PREFIX: &str = "sharpfield.scenarios.kept-aside.";
 pub struct ShareProps {
     pub state: Rc<State>,
     pub dispatch: Callback<Action>,
+    /// Brings the printed sheet up to date and opens the print dialog.
+    pub on_print: Callback<()>,
 }
 
 /// The saved scenarios as loaded, and whether saving may overwrite storage.
@@ -93,7 +95,7 @@ pub fn share_panel(props: &ShareProps) -> Html {
         let base = href.split('?').next().unwrap_or_default().to_string();
         format!("{base}?{}", state.raw.to_query())
     };
-    let qr = qr_svg(&link);
+    let qr = use_memo(link.clone(), |link| qr_svg(link));
 
     // Writes the library and reports the outcome; the in-memory copy is kept either way.
     let commit = {
@@ -136,7 +138,7 @@ pub fn share_panel(props: &ShareProps) -> Html {
             browser::share_link(if name.is_empty() { "Sharpfield scenario" } else { &name }, &link);
         })
     };
-    let on_print = Callback::from(|_| browser::print());
+    let on_print = props.on_print.reform(|_: MouseEvent| ());
     let on_save_name = {
         let save_name = save_name.clone();
         Callback::from(move |e: InputEvent| save_name.set(e.target_unchecked_into::<HtmlInputElement>().value()))
@@ -311,7 +313,7 @@ pub fn share_panel(props: &ShareProps) -> Html {
                     if browser::can_share() { <button type="button" id="share-link" onclick={on_share}>{ "Share…" }</button> }
                     <button type="button" id="print-plan" onclick={on_print}>{ "Print flight plan" }</button>
                 </div>
-                if let Some(qr) = &qr {
+                if let Some(qr) = &*qr {
                     <figure class="qr">
                         <svg class="qr-code" viewBox={format!("0 0 {0} {0}", qr.size)} role="img" aria-label="QR code of this scenario's link" shape-rendering="crispEdges">
                             <rect width={qr.size.to_string()} height={qr.size.to_string()} class="qr-light" />
