@@ -1,5 +1,6 @@
 //! The root component: one state, the input groups, the results, and the browser effects.
 
+use crate::core::chart;
 use crate::core::demo;
 use crate::core::format;
 use crate::core::scenario::RawScenario;
@@ -20,9 +21,6 @@ use crate::ui::state::{Action, State};
 use std::rc::Rc;
 use web_sys::HtmlInputElement;
 use yew::prelude::*;
-
-/// How long typing must pause before the printed sheet follows the scenario (ms).
-const PRINT_SETTLE_MS: u32 = 250;
 
 /// Where the high-contrast preference is kept.
 const THEME_KEY: &str = "sharpfield.theme";
@@ -49,26 +47,16 @@ pub fn app() -> Html {
 
     let snapshot: Rc<State> = Rc::new((*state).clone());
 
-    // The printed sheet repeats most of the page; rebuilding it on every keystroke would cost a
-    // frame, so it follows the scenario once typing pauses, and at once when printing is asked for.
-    let printed = use_state(|| snapshot.clone());
-    {
-        let printed = printed.clone();
-        let current = snapshot.clone();
-        use_effect_with(state.raw.clone(), move |_| {
-            let timer = gloo::timers::callback::Timeout::new(PRINT_SETTLE_MS, move || printed.set(current));
-            move || drop(timer)
-        });
-    }
-    let on_print = {
-        let printed = printed.clone();
-        let current = snapshot.clone();
-        Callback::from(move |_: ()| {
-            printed.set(current.clone());
-            // Let the sheet render before the print dialog lays the page out.
-            gloo::timers::callback::Timeout::new(60, browser::print).forget();
+    // The chart is drawn on screen and on the printed sheet: compute it once per scenario.
+    let chart = {
+        let plan = snapshot.plan.clone();
+        use_memo(state.raw.clone(), move |_| {
+            let r = &plan.report;
+            let crossings: Vec<f64> = r.envelope_changes.iter().map(|c| c.position_m).collect();
+            chart::build(&plan.sweep, r.need_m, r.reach_m, &crossings, plan.scenario.units)
         })
     };
+    let on_print = Callback::from(|_: ()| browser::print());
 
     let report = &snapshot.plan.report;
     let units = snapshot.plan.scenario.units;
@@ -167,14 +155,14 @@ pub fn app() -> Html {
                 }
                 <Results state={snapshot.clone()} />
                 <Cautions state={snapshot.clone()} />
-                <LimitsChart state={snapshot.clone()} />
+                <LimitsChart state={snapshot.clone()} chart={chart.clone()} />
                 <SolvePanel state={snapshot.clone()} />
                 <TargetPanel state={snapshot.clone()} />
                 <SurveyPanel state={snapshot.clone()} />
                 <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} {on_print} />
             </div>
         </main>
-        <PrintSheet state={(*printed).clone()} />
+        <PrintSheet state={snapshot.clone()} chart={chart.clone()} />
         <footer class="foot">
             <p>{ "Sharpfield estimates; it does not replace a test flight, local rules or licensed practice. Sources and limits: see the README." }</p>
         </footer>

@@ -1,6 +1,6 @@
 //! The chart of the four limits and the governing envelope against height or ground distance.
 
-use crate::core::chart::{self, Chart, HEIGHT, WIDTH};
+use crate::core::chart::{Chart, HEIGHT, WIDTH};
 use crate::core::engine::Limit;
 use crate::ui::state::State;
 use std::rc::Rc;
@@ -10,6 +10,8 @@ use yew::prelude::*;
 #[derive(Properties, PartialEq, Clone)]
 pub struct ChartProps {
     pub state: Rc<State>,
+    /// The chart's geometry, computed once per scenario by the app.
+    pub chart: Rc<Chart>,
 }
 
 /// Line style per limit: told apart by dash pattern and label, not by colour alone.
@@ -69,20 +71,12 @@ pub fn chart_svg(c: &Chart, title: &str) -> Html {
 #[function_component(LimitsChart)]
 pub fn limits_chart(props: &ChartProps) -> Html {
     let plan = &props.state.plan;
-    let report = &plan.report;
-    let crossings: Vec<f64> = report.envelope_changes.iter().map(|c| c.position_m).collect();
-    let c = chart::build(
-        &plan.sweep,
-        report.need_m,
-        report.reach_m,
-        &crossings,
-        plan.scenario.units,
-    );
+    let c = &props.chart;
     let title = format!("The four limits against {}", plan.sweep.axis.noun());
     html! {
         <section class="panel" id="chart" aria-labelledby="chart-title">
             <h2 id="chart-title">{ title.clone() }</h2>
-            { chart_svg(&c, &title) }
+            { chart_svg(c, &title) }
             <p class="legend">
                 { "Solid: sampling · long dashes: diffraction · dots: turbulence · dash-dot: motion · thick line: the governing envelope. Vertical lines: the current " }
                 { plan.sweep.axis.noun() }{ ", the 120 m (400 ft) height many rules cap drones at, where the governing limit changes, and the greatest " }{ plan.sweep.axis.noun() }{ " meeting the need." }

@@ -1,7 +1,7 @@
 //! The one-page flight plan for paper (A4 and US Letter). Hidden on screen; the print style sheet
 //! shows it alone. Built from the same plan as the screen, laid out for paper.
 
-use crate::core::chart;
+use crate::core::chart::Chart;
 use crate::core::engine::Limit;
 use crate::core::format;
 use crate::core::qr::qr_svg;
@@ -19,6 +19,8 @@ use yew::prelude::*;
 #[derive(Properties, PartialEq, Clone)]
 pub struct PrintProps {
     pub state: Rc<State>,
+    /// The chart's geometry, shared with the screen.
+    pub chart: Rc<Chart>,
 }
 
 fn air_words(air: AirModel, cn2: f64) -> String {
@@ -49,8 +51,8 @@ pub fn print_sheet(props: &PrintProps) -> Html {
     };
     // The local date: the UTC date of `now_iso` is a day off for much of the day away from UTC.
     let date = browser::local_date();
-    let crossings: Vec<f64> = r.envelope_changes.iter().map(|c| c.position_m).collect();
-    let c = chart::build(&plan.sweep, r.need_m, r.reach_m, &crossings, units);
+    let c = &props.chart;
+    let qr = use_memo(link.clone(), |link| qr_svg(link));
     let view = match s.offset {
         Offset::GroundDistance(g) if g > 0.0 => format!("target {} away on the ground", len(g)),
         Offset::GroundDistance(_) => "straight down".to_string(),
@@ -116,10 +118,10 @@ pub fn print_sheet(props: &PrintProps) -> Html {
                     <p class="print-name">{ if s.name.is_empty() { "Untitled scenario".to_string() } else { s.name.clone() } }</p>
                     <p>{ format!("Printed {date}. Values are estimates; check them in the field.") }</p>
                 </div>
-                if let Some(qr) = qr_svg(&link) {
+                if let Some(qr) = &*qr {
                     <svg class="print-qr" viewBox={format!("0 0 {0} {0}", qr.size)} shape-rendering="crispEdges">
                         <rect width={qr.size.to_string()} height={qr.size.to_string()} class="qr-light" />
-                        <path d={qr.path} class="qr-dark" />
+                        <path d={qr.path.clone()} class="qr-dark" />
                     </svg>
                 }
             </header>
@@ -141,7 +143,7 @@ pub fn print_sheet(props: &PrintProps) -> Html {
                     <p>{ format!("{} governs at {}. {}", r.governing.title(), len(r.limit_m), r.advice) }</p>
                     <p>{ reach }</p>
                 </div>
-                <div>{ chart_svg(&c, "The four limits") }</div>
+                <div>{ chart_svg(c, "The four limits") }</div>
             </div>
             <div class="print-grid">
                 <div>

@@ -1,0 +1,104 @@
+// The survey panel on the built page: the figures equal the report's, the diagram draws the lines
+// the plan counts, the GeoJSON download is RFC 7946 and matches the plan, bad survey inputs are
+// named beside their field, and a speed above a limit is flagged with what to change.
+import { after, before, test } from 'node:test';
+import assert from 'node:assert/strict';
+import { readFileSync } from 'node:fs';
+import { displayed, mismatches, report, start, typeInto } from './helpers.mjs';
+
+const FIELD = 'v=1&name=North+paddock&sw=13.2&sh=8.8&cols=5472&rows=3648&focal=8.8&fnum=4&h=80&gd=0'
+  + '&speed=8&shutter=0.001&aw=400&al=600&fo=75&so=65&trig=2&endur=25&turn=10&mb=10'
+  + '&lat=-36.85&lon=146.29&hdg=30';
+
+let app;
+before(async () => { app = await start(); });
+after(() => app?.close());
+
+/** Asserts the page shows the report of its current address and did not crash. */
+async function showsReport(page) {
+  const query = new URL(page.url()).search.slice(1);
+  const rep = report(query);
+  assert.deepEqual(mismatches((await displayed(page)).filter((s) => s.si !== null), rep), []);
+  assert.equal(await page.isHidden('#crash-notice'), true);
+  return rep;
+}
+
+test('survey figures and the diagram follow the plan', async () => {
+  const page = await app.open(FIELD);
+  const rep = await showsReport(page);
+  assert.ok(rep.lines > 1 && rep.photos > rep.lines, 'the field needs several lines and photos');
+  for (const key of ['footprint_across_m', 'base_m', 'line_spacing_m', 'trigger_s', 'lines', 'photos', 'flight_time_s', 'batteries']) {
+    assert.equal(await page.locator(`#survey [data-key=${key}]`).count(), 1, `${key} is shown in the survey panel`);
+  }
+  const drawn = await page.locator('#survey svg.survey-map g.flight-line').count();
+  assert.equal(drawn, Math.min(rep.lines, 60), 'one drawn line per flight line (at most 60)');
+  assert.equal(await page.locator('#survey svg.survey-map circle.start').count(), 1, 'the start is marked');
+  assert.equal(await page.locator('#survey svg.survey-map rect.end').count(), 1, 'the end is marked');
+  assert.ok(await page.locator('#survey svg.survey-map rect.footprint').count() >= 2, 'first footprints drawn');
+  // Directions alternate: line 1 runs along the area, line 2 back (serpentine order).
+  const ys = await page.$$eval('#survey g.flight-line line', (ls) => ls.slice(0, 2).map((l) => [Number(l.getAttribute('y1')), Number(l.getAttribute('y2'))]));
+  assert.ok(ys[0][1] > ys[0][0] && ys[1][1] < ys[1][0], `lines 1 and 2 run in opposite directions: ${JSON.stringify(ys)}`);
+  await page.context().close();
+});
+
+test('the GeoJSON download is a FeatureCollection of the area and every flight line', async () => {
+  const page = await app.open(FIELD);
+  const rep = report(new URL(page.url()).search.slice(1));
+  const [download] = await Promise.all([
+    page.waitForEvent('download'),
+    page.click('#survey .export button'),
+  ]);
+  assert.match(download.suggestedFilename(), /^north-paddock\.geojson$/);
+  const geo = JSON.parse(readFileSync(await download.path(), 'utf8'));
+  assert.equal(geo.type, 'FeatureCollection');
+  const polygons = geo.features.filter((f) => f.geometry.type === 'Polygon');
+  const lines = geo.features.filter((f) => f.geometry.type === 'LineString');
+  assert.equal(polygons.length, 1);
+  assert.equal(lines.length, rep.lines);
+  const ring = polygons[0].geometry.coordinates[0];
+  assert.deepEqual(ring[0], ring[ring.length - 1], 'the ring is closed (RFC 7946 §3.1.6)');
+  // Counter-clockwise outer ring (RFC 7946 §3.1.6): positive shoelace area in lon/lat.
+  let twice = 0;
+  for (let i = 0; i + 1 < ring.length; i++) twice += ring[i][0] * ring[i + 1][1] - ring[i + 1][0] * ring[i][1];
+  assert.ok(twice > 0, 'the outer ring is counter-clockwise');
+  // [longitude, latitude] order near the origin given in the link.
+  for (const [lon, lat] of ring) {
+    assert.ok(Math.abs(lon - 146.29) < 0.05 && Math.abs(lat + 36.85) < 0.05, `${lon},${lat} is near the origin`);
+  }
+  await page.context().close();
+});
+
+test('bad survey inputs are named beside their field; nothing crashes', async () => {
+  const page = await app.open(FIELD);
+  const cases = [
+    ['#in-fo', '100', /Front overlap .*from 0 to 95 %/],
+    ['#in-so', '-5', /Side overlap .*from 0 to 95 %/],
+    ['#in-aw', '0', /Area width .*from 1 to 100000 m/],
+  ];
+  for (const [selector, text, message] of cases) {
+    await typeInto(page, selector, text);
+    const field = page.locator(`.field:has(${selector})`);
+    await field.locator('.error').waitFor();
+    assert.match(await field.locator('.error').textContent(), message);
+    assert.equal(await page.isHidden('#crash-notice'), true);
+  }
+  await showsReport(page);
+  await page.context().close();
+});
+
+test('zero speed leaves the timing blank with a note; a speed over the blur limit is flagged', async () => {
+  const still = await app.open(FIELD.replace('speed=8', 'speed=0'));
+  const rep = await showsReport(still);
+  assert.equal(rep.trigger_s, null);
+  assert.equal(await still.getAttribute('#survey [data-key=trigger_s]', 'data-si'), '');
+  assert.ok((await still.locator('#survey .note').count()) > 0, 'a note says why the timing is missing');
+  await still.context().close();
+
+  const fast = await app.open(FIELD.replace('speed=8', 'speed=30').replace('shutter=0.001', 'shutter=0.01'));
+  const fastReport = await showsReport(fast);
+  assert.ok(fastReport.speed_flags.some((f) => f.code === 'blur'));
+  const flag = fast.locator('#survey .flag[data-flag=blur]');
+  assert.equal(await flag.count(), 1);
+  assert.match(await flag.textContent(), /shutter|slow/i, 'the flag says what to change');
+  await fast.context().close();
+});
