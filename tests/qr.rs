@@ -28,7 +28,12 @@ fn check_round_trip(text: &str) {
     // ISO/IEC 18004: version v has 4v + 17 modules a side; the quiet zone adds 4 on each side.
     let symbol = qr.size - 2 * QUIET_ZONE;
     assert_eq!((symbol - 17) % 4, 0, "symbol size {symbol} is not 4v + 17");
-    assert_eq!(decode(&qr.modules, qr.size, 4), vec![text.to_string()]);
+    // Decode what the SVG path paints, not the encoder's own grid.
+    let mut grid = vec![false; qr.size * qr.size];
+    for (x, y) in painted(&qr.path) {
+        grid[y * qr.size + x] = true;
+    }
+    assert_eq!(decode(&grid, qr.size, 4), vec![text.to_string()]);
 }
 
 #[test]
@@ -44,31 +49,33 @@ fn short_and_unicode_texts_decode_back() {
     check_round_trip("http://127.0.0.1:8080/?v=1&name=Feld%20%C3%BCber%20dem%20Bach");
 }
 
+/// The modules the SVG path paints: each `M{x} {y}h{run}v1h-{run}z` covers `run` modules of row y.
+fn painted(path: &str) -> Vec<(usize, usize)> {
+    let mut out = Vec::new();
+    for piece in path.split('M').filter(|p| !p.is_empty()) {
+        let (corner, rest) = piece.split_once('h').expect("a run starts with h");
+        let (x, y) = corner.split_once(' ').expect("x and y");
+        let (x, y): (usize, usize) = (x.parse().expect("x"), y.parse().expect("y"));
+        let run: usize = rest.split('v').next().and_then(|r| r.parse().ok()).expect("run length");
+        assert_eq!(rest, format!("{run}v1h-{run}z"), "a run is a one-module-high rectangle");
+        out.extend((x..x + run).map(|px| (px, y)));
+    }
+    out
+}
+
 #[test]
-fn svg_path_draws_exactly_the_dark_modules() {
+fn svg_path_paints_exactly_the_dark_modules() {
     let qr = qr_svg("http://127.0.0.1:8080/?v=1&h=80").expect("fits");
-    let drawn: Vec<(usize, usize)> = qr
-        .path
-        .split('M')
-        .filter(|s| !s.is_empty())
-        .map(|s| {
-            let head = s.split('h').next().unwrap_or_default();
-            let mut parts = head.split(' ').map(|n| n.parse::<usize>().expect("module coordinate"));
-            (parts.next().expect("x"), parts.next().expect("y"))
-        })
-        .collect();
+    let mut drawn = painted(&qr.path);
+    drawn.sort_by_key(|&(x, y)| (y, x));
     let dark: Vec<(usize, usize)> = (0..qr.size * qr.size)
         .filter(|i| qr.modules[*i])
         .map(|i| (i % qr.size, i / qr.size))
         .collect();
-    let mut sorted = drawn.clone();
-    sorted.sort_by_key(|&(x, y)| (y, x));
-    assert_eq!(sorted, dark);
+    assert_eq!(drawn, dark);
     // The quiet zone stays light on every side.
-    assert!(drawn
-        .iter()
-        .all(|&(x, y)| (QUIET_ZONE..qr.size - QUIET_ZONE).contains(&x)
-            && (QUIET_ZONE..qr.size - QUIET_ZONE).contains(&y)));
+    let inside = QUIET_ZONE..qr.size - QUIET_ZONE;
+    assert!(drawn.iter().all(|(x, y)| inside.contains(x) && inside.contains(y)));
 }
 
 #[test]

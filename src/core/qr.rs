@@ -3,12 +3,13 @@
 //! into one SVG path.
 
 use qrcodegen::{QrCode, QrCodeEcc};
+use std::fmt::Write;
 
 /// Light modules kept around the symbol, as ISO/IEC 18004 asks.
 pub const QUIET_ZONE: usize = 4;
 
-/// A QR symbol as SVG: `size` modules square including the quiet zone, and a path of unit squares
-/// for the dark modules.
+/// A QR symbol as SVG: `size` modules square including the quiet zone, and a path of one-module-high
+/// rectangles covering exactly the dark modules.
 #[derive(Clone, Debug, PartialEq)]
 pub struct QrSvg {
     pub size: usize,
@@ -23,15 +24,22 @@ pub fn qr_svg(text: &str) -> Option<QrSvg> {
     let n = usize::try_from(code.size()).ok()?;
     let size = n + 2 * QUIET_ZONE;
     let mut modules = vec![false; size * size];
-    let mut path = String::with_capacity(n * n * 4);
+    let mut path = String::with_capacity(n * n);
     for y in 0..n {
-        for x in 0..n {
-            let dark = code.get_module(x as i32, y as i32);
-            if dark {
-                let (px, py) = (x + QUIET_ZONE, y + QUIET_ZONE);
-                modules[py * size + px] = true;
-                path.push_str(&format!("M{px} {py}h1v1h-1z"));
+        // One rectangle per horizontal run of dark modules keeps the path short.
+        let mut x = 0;
+        while x < n {
+            if !code.get_module(x as i32, y as i32) {
+                x += 1;
+                continue;
             }
+            let start = x;
+            while x < n && code.get_module(x as i32, y as i32) {
+                modules[(y + QUIET_ZONE) * size + x + QUIET_ZONE] = true;
+                x += 1;
+            }
+            let run = x - start;
+            let _ = write!(path, "M{} {}h{run}v1h-{run}z", start + QUIET_ZONE, y + QUIET_ZONE);
         }
     }
     Some(QrSvg { size, path, modules })

@@ -3,6 +3,7 @@
 use crate::core::chart;
 use crate::core::demo;
 use crate::core::format;
+use crate::core::qr::qr_svg;
 use crate::core::scenario::RawScenario;
 use crate::ui::browser;
 use crate::ui::components::cautions::Cautions;
@@ -41,8 +42,10 @@ pub fn app() -> Html {
 
     // The address always holds the current scenario, replaced in place while editing.
     {
-        let raw = state.raw.clone();
-        use_effect_with(raw, browser::replace_location_query);
+        let writer = use_mut_ref(browser::AddressWriter::default);
+        use_effect_with(state.raw.clone(), move |raw| {
+            browser::AddressWriter::request(&writer, raw.clone())
+        });
     }
 
     let snapshot: Rc<State> = Rc::new((*state).clone());
@@ -57,6 +60,9 @@ pub fn app() -> Html {
         })
     };
     let on_print = Callback::from(|_: ()| browser::print());
+    // The link to this scenario and its QR code, shown on screen and printed.
+    let link = browser::link_to(&state.raw);
+    let qr = use_memo(link.clone(), |link| qr_svg(link));
 
     let report = &snapshot.plan.report;
     let units = snapshot.plan.scenario.units;
@@ -159,10 +165,10 @@ pub fn app() -> Html {
                 <SolvePanel state={snapshot.clone()} />
                 <TargetPanel state={snapshot.clone()} />
                 <SurveyPanel state={snapshot.clone()} />
-                <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} {on_print} />
+                <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} {on_print} link={link.clone()} qr={qr.clone()} />
             </div>
         </main>
-        <PrintSheet state={snapshot.clone()} chart={chart.clone()} />
+        <PrintSheet state={snapshot.clone()} chart={chart.clone()} qr={qr.clone()} />
         <footer class="foot">
             <p>{ "Sharpfield estimates; it does not replace a test flight, local rules or licensed practice. Sources and limits: see the README." }</p>
         </footer>

@@ -9,6 +9,12 @@ pub fn scenario_from_location() -> Option<RawScenario> {
     (!raw.pairs.is_empty()).then_some(raw)
 }
 
+/// The full link to a scenario: this page's address with the scenario as its query.
+pub fn link_to(raw: &RawScenario) -> String {
+    let href = location_href();
+    format!("{}?{}", href.split('?').next().unwrap_or_default(), raw.to_query())
+}
+
 /// Replaces the address's query with the scenario, without adding a history entry.
 pub fn replace_location_query(raw: &RawScenario) {
     let Some(window) = web_sys::window() else { return };
@@ -16,6 +22,47 @@ pub fn replace_location_query(raw: &RawScenario) {
     let path = window.location().pathname().unwrap_or_else(|_| "/".to_string());
     let url = format!("{path}?{}", raw.to_query());
     let _ = history.replace_state_with_url(&wasm_bindgen::JsValue::NULL, "", Some(&url));
+}
+
+/// Shortest time between two writes of the address while typing (ms).
+const ADDRESS_INTERVAL_MS: f64 = 200.0;
+
+/// Keeps the address in step with the scenario without rewriting it on every keystroke: every
+/// rewrite makes the browser fetch and decode the page's icon again, which costs a frame. The
+/// first change is written at once, later ones at most every [`ADDRESS_INTERVAL_MS`], and the
+/// last one always.
+#[derive(Default)]
+pub struct AddressWriter {
+    last_write_ms: f64,
+    pending: Option<RawScenario>,
+    timer: Option<gloo::timers::callback::Timeout>,
+}
+
+impl AddressWriter {
+    /// Asks for the address to show `raw`.
+    pub fn request(this: &std::rc::Rc<std::cell::RefCell<AddressWriter>>, raw: RawScenario) {
+        let now = js_sys::Date::now();
+        let mut writer = this.borrow_mut();
+        let waited = now - writer.last_write_ms;
+        if writer.timer.is_none() && waited >= ADDRESS_INTERVAL_MS {
+            replace_location_query(&raw);
+            writer.last_write_ms = now;
+            return;
+        }
+        writer.pending = Some(raw);
+        if writer.timer.is_none() {
+            let delay = (ADDRESS_INTERVAL_MS - waited).clamp(0.0, ADDRESS_INTERVAL_MS) as u32;
+            let handle = this.clone();
+            writer.timer = Some(gloo::timers::callback::Timeout::new(delay, move || {
+                let mut writer = handle.borrow_mut();
+                writer.timer = None;
+                if let Some(raw) = writer.pending.take() {
+                    replace_location_query(&raw);
+                    writer.last_write_ms = js_sys::Date::now();
+                }
+            }));
+        }
+    }
 }
 
 /// A file name from a scenario name: letters, digits and dashes only.

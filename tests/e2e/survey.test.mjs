@@ -77,6 +77,8 @@ test('bad survey inputs are named beside their field; nothing crashes', async ()
   ];
   for (const [selector, text, message] of cases) {
     await typeInto(page, selector, text);
+    // The address follows within a fifth of a second; compare the page with the report only then.
+    await page.waitForFunction(([k, v]) => new URLSearchParams(location.search).get(k) === v, [selector.slice(4), text]);
     const field = page.locator(`.field:has(${selector})`);
     await field.locator('.error').waitFor();
     assert.match(await field.locator('.error').textContent(), message);

@@ -4,7 +4,7 @@
 use crate::core::chart::Chart;
 use crate::core::engine::Limit;
 use crate::core::format;
-use crate::core::qr::qr_svg;
+use crate::core::qr::QrSvg;
 use crate::core::scenario::{AirModel, Offset};
 use crate::core::solve::describe_reach;
 use crate::core::survey::layout;
@@ -21,6 +21,8 @@ pub struct PrintProps {
     pub state: Rc<State>,
     /// The chart's geometry, shared with the screen.
     pub chart: Rc<Chart>,
+    /// The QR code of the scenario's link, shared with the screen.
+    pub qr: Rc<Option<QrSvg>>,
 }
 
 fn air_words(air: AirModel, cn2: f64) -> String {
@@ -41,18 +43,10 @@ pub fn print_sheet(props: &PrintProps) -> Html {
     let r = &plan.report;
     let units = s.units;
     let len = |m: f64| format::length(m, units);
-    let link = {
-        let href = browser::location_href();
-        format!(
-            "{}?{}",
-            href.split('?').next().unwrap_or_default(),
-            props.state.raw.to_query()
-        )
-    };
     // The local date: the UTC date of `now_iso` is a day off for much of the day away from UTC.
     let date = browser::local_date();
     let c = &props.chart;
-    let qr = use_memo(link.clone(), |link| qr_svg(link));
+    let qr = &props.qr;
     let view = match s.offset {
         Offset::GroundDistance(g) if g > 0.0 => format!("target {} away on the ground", len(g)),
         Offset::GroundDistance(_) => "straight down".to_string(),
@@ -118,7 +112,7 @@ pub fn print_sheet(props: &PrintProps) -> Html {
                     <p class="print-name">{ if s.name.is_empty() { "Untitled scenario".to_string() } else { s.name.clone() } }</p>
                     <p>{ format!("Printed {date}. Values are estimates; check them in the field.") }</p>
                 </div>
-                if let Some(qr) = &*qr {
+                if let Some(qr) = &**qr {
                     <svg class="print-qr" viewBox={format!("0 0 {0} {0}", qr.size)} shape-rendering="crispEdges">
                         <rect width={qr.size.to_string()} height={qr.size.to_string()} class="qr-light" />
                         <path d={qr.path.clone()} class="qr-dark" />

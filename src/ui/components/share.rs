@@ -1,7 +1,7 @@
 //! Share, save and print: the link, a QR code of it, the saved scenarios, and the printed plan.
 
 use crate::core::library::{Library, ReadOutcome};
-use crate::core::qr::qr_svg;
+use crate::core::qr::QrSvg;
 use crate::core::scenario::RawScenario;
 use crate::ui::browser;
 use crate::ui::state::{Action, State};
@@ -19,8 +19,11 @@ pub const KEPT_ASIDE_PREFIX: &str = "sharpfield.scenarios.kept-aside.";
 pub struct ShareProps {
     pub state: Rc<State>,
     pub dispatch: Callback<Action>,
-    /// Brings the printed sheet up to date and opens the print dialog.
+    /// Opens the print dialog.
     pub on_print: Callback<()>,
+    /// The scenario's link and its QR code, computed once by the app.
+    pub link: AttrValue,
+    pub qr: Rc<Option<QrSvg>>,
 }
 
 /// The saved scenarios as loaded, and whether saving may overwrite storage.
@@ -90,12 +93,8 @@ pub fn share_panel(props: &ShareProps) -> Html {
     let confirm_delete = use_state(|| Option::<String>::None);
 
     let state = &props.state;
-    let link = {
-        let href = browser::location_href();
-        let base = href.split('?').next().unwrap_or_default().to_string();
-        format!("{base}?{}", state.raw.to_query())
-    };
-    let qr = use_memo(link.clone(), |link| qr_svg(link));
+    let link = props.link.to_string();
+    let qr = props.qr.clone();
 
     // Writes the library and reports the outcome; the in-memory copy is kept either way.
     let commit = {
