@@ -157,7 +157,7 @@ pub fn app() -> Html {
             </form>
             <div class="outputs">
                 if snapshot.plan.scenario.name.ends_with("(demo)") {
-                    <p class="intro">{ "This is a worked demo of invented places. Every figure below follows the inputs on the left: change the height, the lens or the air and watch which limit governs. Open the other demo from “Demos”, or start from your own camera." }</p>
+                    <p class="intro">{ "A worked demo of invented places: change any input and watch which limit governs. “Demos” has another." }</p>
                 }
                 <Results state={snapshot.clone()} />
                 <Cautions state={snapshot.clone()} />

@@ -62,6 +62,15 @@ fn detail(limit: Limit, state: &State) -> String {
     }
 }
 
+/// `text` with its first letter in lower case, for a title used inside a sentence.
+fn lower_first(text: &str) -> String {
+    let mut chars = text.chars();
+    match chars.next() {
+        Some(c) => c.to_lowercase().chain(chars).collect(),
+        None => String::new(),
+    }
+}
+
 /// The results panel.
 #[function_component(Results)]
 pub fn results(props: &ResultsProps) -> Html {
@@ -81,9 +90,9 @@ pub fn results(props: &ResultsProps) -> Html {
                 <strong>{ format!("{} governs: ", governing.title()) }</strong>
                 { value("limit_m", report.limit_m, format::length(report.limit_m, units)) }
                 if report.governing_margin > 1.0 {
-                    { format!(", {} the next limit, {}.", format::times(report.governing_margin), runner_up.title()) }
+                    { format!(", {} the next limit, {}.", format::times(report.governing_margin), lower_first(runner_up.title())) }
                 } else {
-                    { format!(", level with {}.", runner_up.title()) }
+                    { format!(", level with {}.", lower_first(runner_up.title())) }
                 }
             </p>
             <p class="advice" data-key="advice" data-si={report.advice}>{ format!("To see finer detail: {}", report.advice) }</p>
