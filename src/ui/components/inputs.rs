@@ -284,16 +284,39 @@ pub fn motion_group(props: &InputsProps) -> Html {
     }
 }
 
+/// Typical targets and their critical dimensions, from the range-performance literature as recalled
+/// in resolution-model §6 (from memory: check before relying on them).
+const TARGET_PRESETS: &[(&str, &str, &str)] = &[
+    ("person", "A person (0.75 m)", "0.75"),
+    ("car", "A passenger car (2.3 m)", "2.3"),
+];
+
 /// What is needed: a resolution on the ground, and a target to judge.
 #[function_component(NeedGroup)]
 pub fn need_group(props: &InputsProps) -> Html {
+    let state = &props.state;
+    let selected = TARGET_PRESETS
+        .iter()
+        .find(|(_, _, v)| reads_as(state, "tdim", v.parse().unwrap_or(0.0)))
+        .map(|p| p.0)
+        .unwrap_or("custom");
+    let on_change = props
+        .dispatch
+        .reform(|id: String| match TARGET_PRESETS.iter().find(|p| p.0 == id) {
+            Some((_, _, v)) => Action::set("tdim", *v),
+            None => Action::Set(Vec::new()),
+        });
+    let mut items: Vec<(String, String)> = TARGET_PRESETS
+        .iter()
+        .map(|p| (p.0.to_string(), p.1.to_string()))
+        .collect();
+    items.push(("custom".into(), "Another target (enter its size)".into()));
     html! {
         <fieldset class="group" id="group-need">
             <legend>{ "What you need to see" }</legend>
-            <div class="pair">
-                { field(props, "need", length_hint(props, "need")) }
-                { field(props, "tdim", Some("0.75 m is used for a person".to_string())) }
-            </div>
+            { field(props, "need", length_hint(props, "need")) }
+            <Choice id="target-preset" label="Target" options={options(items)} selected={selected} {on_change} />
+            { field(props, "tdim", length_hint(props, "tdim")) }
         </fieldset>
     }
 }
