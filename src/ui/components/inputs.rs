@@ -28,6 +28,11 @@ fn field(props: &InputsProps, key: &'static str, hint: Option<String>) -> Html {
     }
 }
 
+/// Two fields side by side.
+fn pair(first: Html, second: Html) -> Html {
+    html! { <div class="pair">{ first }{ second }</div> }
+}
+
 /// The value of a length key in the other unit system, for a hint under its field.
 fn length_hint(props: &InputsProps, key: &str) -> Option<String> {
     let units = props.state.plan.scenario.units;
@@ -91,14 +96,8 @@ pub fn camera_group(props: &InputsProps) -> Html {
         <fieldset class="group" id="group-camera">
             <legend>{ "Camera" }</legend>
             <Choice id="camera-preset" label="Sensor format" options={options(items)} selected={selected} {on_change} />
-            <div class="pair">
-                { field(props, "sw", None) }
-                { field(props, "sh", None) }
-            </div>
-            <div class="pair">
-                { field(props, "cols", None) }
-                { field(props, "rows", None) }
-            </div>
+            { pair(field(props, "sw", None), field(props, "sh", None)) }
+            { pair(field(props, "cols", None), field(props, "rows", None)) }
             <p class="derived">{ "Pixel pitch " }<span data-key="pitch_m" data-si={state.plan.report.pitch_m.to_string()}>{ format!("{} µm", format::significant(pitch_um)) }</span></p>
         </fieldset>
     }
@@ -111,10 +110,7 @@ pub fn lens_group(props: &InputsProps) -> Html {
     html! {
         <fieldset class="group" id="group-lens">
             <legend>{ "Lens" }</legend>
-            <div class="pair">
-                { field(props, "focal", None) }
-                { field(props, "fnum", None) }
-            </div>
+            { pair(field(props, "focal", None), field(props, "fnum", None)) }
             <p class="derived">{ "Aperture diameter " }<span data-key="aperture_m" data-si={aperture.to_string()}>{ format!("{} mm", format::significant(aperture * 1000.0)) }</span></p>
         </fieldset>
     }
@@ -247,10 +243,7 @@ pub fn air_group(props: &InputsProps) -> Html {
             <legend>{ "Air" }</legend>
             <Choice id="air-preset" label="Turbulence" options={options(items)} selected={selected} {on_change} />
             if air == "power" {
-                <div class="pair">
-                    { field(props, "cn2", None) }
-                    { field(props, "cexp", Some("−4/3 sunny day, −2/3 night".to_string())) }
-                </div>
+                { pair(field(props, "cn2", None), field(props, "cexp", Some("−4/3 sunny day, −2/3 night".to_string()))) }
             }
             <p class="derived">{ "Fried parameter r0 of the path " }
                 <span data-key="r0_m" data-si={r0.map(|r| r.to_string()).unwrap_or_default()}>
@@ -276,10 +269,7 @@ pub fn motion_group(props: &InputsProps) -> Html {
     html! {
         <fieldset class="group" id="group-motion">
             <legend>{ "Motion" }</legend>
-            <div class="pair">
-                { field(props, "speed", speed_hint) }
-                { field(props, "shutter", Some("1/1000 is accepted".to_string())) }
-            </div>
+            { pair(field(props, "speed", speed_hint), field(props, "shutter", Some("1/1000 is accepted".to_string()))) }
         </fieldset>
     }
 }
@@ -327,27 +317,12 @@ pub fn survey_group(props: &InputsProps) -> Html {
     html! {
         <fieldset class="group" id="group-survey">
             <legend>{ "Survey area and aircraft" }</legend>
-            <div class="pair">
-                { field(props, "aw", length_hint(props, "aw")) }
-                { field(props, "al", length_hint(props, "al")) }
-            </div>
-            <div class="pair">
-                { field(props, "fo", None) }
-                { field(props, "so", None) }
-            </div>
-            <div class="pair">
-                { field(props, "trig", None) }
-                { field(props, "blur", None) }
-            </div>
-            <div class="pair">
-                { field(props, "endur", None) }
-                { field(props, "turn", None) }
-            </div>
+            { pair(field(props, "aw", length_hint(props, "aw")), field(props, "al", length_hint(props, "al"))) }
+            { pair(field(props, "fo", None), field(props, "so", None)) }
+            { pair(field(props, "trig", None), field(props, "blur", None)) }
+            { pair(field(props, "endur", None), field(props, "turn", None)) }
             { field(props, "mb", None) }
-            <div class="pair">
-                { field(props, "lat", None) }
-                { field(props, "lon", None) }
-            </div>
+            { pair(field(props, "lat", None), field(props, "lon", None)) }
             { field(props, "hdg", None) }
         </fieldset>
     }
