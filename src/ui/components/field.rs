@@ -1,5 +1,6 @@
 //! A labelled text input that keeps exactly what the person types and shows the field's error.
 
+use crate::core::format::{entry_matches, entry_range, from_entry_text, to_entry_text, EntryUnit};
 use crate::core::scenario::number_spec;
 use web_sys::{HtmlInputElement, HtmlSelectElement};
 use yew::prelude::*;
@@ -17,8 +18,11 @@ pub struct FieldProps {
     /// A short note under the field (e.g. the value in other units).
     #[prop_or_default]
     pub hint: Option<AttrValue>,
-    /// Called with (key, text) on every keystroke.
+    /// Called with (key, contract text) on every keystroke.
     pub on_input: Callback<(String, String)>,
+    /// The unit the field is typed in when it is not the contract's (imperial display).
+    #[prop_or_default]
+    pub entry: Option<EntryUnit>,
 }
 
 /// A numeric field; label, unit and range come from the contract's spec for the key.
@@ -27,30 +31,69 @@ pub fn number_field(props: &FieldProps) -> Html {
     let key = props.key_name.to_string();
     let spec = number_spec(&key);
     let label = spec.map(|s| s.label).unwrap_or("Value");
-    let unit = spec.map(|s| s.unit).unwrap_or("");
+    let entry = props.entry;
+    let unit = entry.map(|e| e.unit).or(spec.map(|s| s.unit)).unwrap_or("");
     let id = format!("in-{key}");
     let error_id = format!("err-{key}");
+
+    // Typed in another unit, the field keeps its own text (so "1." survives while typing) and
+    // follows the scenario only when the scenario changes from elsewhere (a demo, a link, the
+    // unit switch).
+    let converted = |value: &str| {
+        entry
+            .map(|e| to_entry_text(value, e))
+            .unwrap_or_else(|| value.to_string())
+    };
+    let local = use_state(|| converted(&props.value));
+    {
+        let local = local.clone();
+        let value = props.value.to_string();
+        use_effect_with((value, entry), move |(value, entry)| {
+            if let Some(e) = entry {
+                if !entry_matches(&local, value, *e) {
+                    local.set(to_entry_text(value, *e));
+                }
+            }
+        });
+    }
+    let shown: AttrValue = if entry.is_some() {
+        (*local).clone().into()
+    } else {
+        props.value.clone()
+    };
+
     let oninput = {
         let on_input = props.on_input.clone();
         let key = key.clone();
+        let local = local.clone();
         Callback::from(move |e: InputEvent| {
             let input: HtmlInputElement = e.target_unchecked_into();
-            on_input.emit((key.clone(), input.value()));
+            let text = input.value();
+            let contract = match entry {
+                Some(unit) => from_entry_text(&text, unit),
+                None => text.clone(),
+            };
+            local.set(text);
+            on_input.emit((key.clone(), contract));
         })
     };
     let invalid = props.error.is_some();
+    let range_in_entry_unit = match (entry, spec, invalid) {
+        (Some(e), Some(spec), true) => Some(format!("In {}: {}.", e.unit, entry_range(spec, e))),
+        _ => None,
+    };
     html! {
         <div class={classes!("field", invalid.then_some("invalid"))}>
             <label for={id.clone()}>{ label }{ if unit.is_empty() { html!{} } else { html!{ <span class="unit">{ format!(" ({unit})") }</span> } } }</label>
             <input id={id} name={key.clone()} type="text" inputmode="decimal" autocomplete="off" spellcheck="false"
-                value={props.value.clone()} {oninput}
+                value={shown} {oninput}
                 aria-invalid={invalid.to_string()}
                 aria-describedby={invalid.then(|| error_id.clone())} />
             if let Some(hint) = &props.hint {
                 <span class="hint">{ hint.clone() }</span>
             }
             if let Some(error) = &props.error {
-                <span class="error" id={error_id} role="alert">{ error.clone() }</span>
+                <span class="error" id={error_id} role="alert">{ error.clone() }{ range_in_entry_unit.map(|r| format!(" {r}")).unwrap_or_default() }</span>
             }
         </div>
     }

@@ -21,10 +21,11 @@ fn field(props: &InputsProps, key: &'static str, hint: Option<String>) -> Html {
     let on_input = props
         .dispatch
         .reform(|(k, v): (String, String)| Action::Set(vec![(k, v)]));
+    let entry = format::entry_unit(key, props.state.plan.scenario.units);
     html! {
         <NumberField key_name={key} value={props.state.text(key)}
             error={props.state.error(key).map(AttrValue::from)}
-            hint={hint.map(AttrValue::from)} {on_input} />
+            hint={hint.map(AttrValue::from)} {on_input} {entry} />
     }
 }
 
@@ -33,14 +34,13 @@ fn pair(first: Html, second: Html) -> Html {
     html! { <div class="pair">{ first }{ second }</div> }
 }
 
-/// The value of a length key in the other unit system, for a hint under its field.
+/// The value of a length key in metres, under its field when it is typed in feet or inches.
 fn length_hint(props: &InputsProps, key: &str) -> Option<String> {
-    let units = props.state.plan.scenario.units;
-    if units != Units::Imperial || props.state.error(key).is_some() {
+    if props.state.plan.scenario.units != Units::Imperial || props.state.error(key).is_some() {
         return None;
     }
     let metres: f64 = props.state.text(key).trim().parse().ok()?;
-    Some(format!("= {}", format::length(metres, units)))
+    Some(format!("= {}", format::length(metres, Units::Metric)))
 }
 
 /// Options for a select from (value, label) pairs.
@@ -257,7 +257,6 @@ pub fn air_group(props: &InputsProps) -> Html {
 /// Motion: ground speed and exposure time.
 #[function_component(MotionGroup)]
 pub fn motion_group(props: &InputsProps) -> Html {
-    let units = props.state.plan.scenario.units;
     let speed_hint = props
         .state
         .text("speed")
@@ -265,7 +264,7 @@ pub fn motion_group(props: &InputsProps) -> Html {
         .parse::<f64>()
         .ok()
         .filter(|_| props.state.error("speed").is_none())
-        .map(|v| format!("= {}", format::speed(v, units)));
+        .map(|v| format!("= {}", format::speed(v, Units::Metric)));
     html! {
         <fieldset class="group" id="group-motion">
             <legend>{ "Motion" }</legend>
