@@ -254,3 +254,54 @@ pub fn set_theme(theme: &str) {
         let _ = root.set_attribute("data-theme", theme);
     }
 }
+
+/// Asks the device for its position (the browser asks the person first); `done` gets
+/// (latitude, longitude) in degrees or a message. False when the browser has no geolocation.
+/// The position stays in the page: it only fills the survey origin.
+pub fn current_position(done: impl Fn(Result<(f64, f64), String>) + 'static) -> bool {
+    use wasm_bindgen::closure::Closure;
+    use wasm_bindgen::JsCast;
+    let Some(navigator) = web_sys::window().map(|w| w.navigator()) else {
+        return false;
+    };
+    let Ok(geolocation) = js_sys::Reflect::get(&navigator, &"geolocation".into()) else {
+        return false;
+    };
+    if geolocation.is_undefined() || geolocation.is_null() {
+        return false;
+    }
+    let Ok(method) = js_sys::Reflect::get(&geolocation, &"getCurrentPosition".into()) else {
+        return false;
+    };
+    let Some(method) = method.dyn_ref::<js_sys::Function>() else {
+        return false;
+    };
+    let done = std::rc::Rc::new(done);
+    let on_error = {
+        let done = done.clone();
+        Closure::once_into_js(move |error: wasm_bindgen::JsValue| {
+            let reason = js_sys::Reflect::get(&error, &"message".into())
+                .ok()
+                .and_then(|m| m.as_string())
+                .unwrap_or_default();
+            done(Err(format!(
+                "The device's position is not available ({reason}); type the origin instead."
+            )));
+        })
+    };
+    let on_success = Closure::once_into_js(move |position: wasm_bindgen::JsValue| {
+        let coords = js_sys::Reflect::get(&position, &"coords".into()).unwrap_or(wasm_bindgen::JsValue::UNDEFINED);
+        let read = |name: &str| {
+            js_sys::Reflect::get(&coords, &name.into())
+                .ok()
+                .and_then(|v| v.as_f64())
+        };
+        match (read("latitude"), read("longitude")) {
+            (Some(lat), Some(lon)) if lat.is_finite() && lon.is_finite() => done(Ok((lat, lon))),
+            _ => done(Err(
+                "The device gave no usable position; type the origin instead.".to_string()
+            )),
+        }
+    });
+    method.call2(&geolocation, &on_success, &on_error).is_ok()
+}

@@ -104,3 +104,32 @@ test('zero speed leaves the timing blank with a note; a speed over the blur limi
   assert.match(await flag.textContent(), /shutter|slow/i, 'the flag says what to change');
   await fast.context().close();
 });
+
+test('the survey origin can be taken from the device position; a refusal is said, not a crash', async () => {
+  const context = await app.browser.newContext({
+    permissions: ['geolocation'],
+    geolocation: { latitude: -35.123456789, longitude: 149.987654321 },
+  });
+  const page = await context.newPage();
+  await page.goto(`${app.origin}/?${FIELD}`);
+  await page.waitForSelector('[data-key="limit_m"]');
+  await page.click('#locate');
+  // Rounded to six decimal places (about 0.1 m).
+  await page.waitForFunction(() => new URLSearchParams(location.search).get('lat') === '-35.123457');
+  assert.equal(new URL(page.url()).searchParams.get('lon'), '149.987654');
+  assert.equal(await page.inputValue('#in-lat'), '-35.123457');
+  await context.close();
+
+  const refused = await app.browser.newContext();
+  const other = await refused.newPage();
+  const errors = [];
+  other.on('pageerror', (e) => errors.push(String(e)));
+  await other.goto(`${app.origin}/?${FIELD}`);
+  await other.waitForSelector('[data-key="limit_m"]');
+  await other.click('#locate');
+  await other.waitForFunction(() => /not available|cannot tell/.test(document.querySelector('.locate .note')?.textContent ?? ''));
+  assert.equal(new URL(other.url()).searchParams.get('lat'), '-36.85', 'a refusal leaves the origin as it was');
+  assert.equal(await other.isHidden('#crash-notice'), true);
+  assert.deepEqual(errors, []);
+  await refused.close();
+});

@@ -5,6 +5,7 @@ use super::field::{Choice, NumberField};
 use crate::core::demo::{BANDS, SENSOR_FORMATS};
 use crate::core::format;
 use crate::core::scenario::{format_number, Units};
+use crate::ui::browser;
 use crate::ui::state::{Action, State};
 use std::rc::Rc;
 use yew::prelude::*;
@@ -27,6 +28,12 @@ fn field(props: &InputsProps, key: &'static str, hint: Option<String>) -> Html {
             error={props.state.error(key).map(AttrValue::from)}
             hint={hint.map(AttrValue::from)} {on_input} {entry} />
     }
+}
+
+/// `x` rounded to `decimals` decimal places (a position to 6 places is about 0.1 m).
+fn round_to(x: f64, decimals: i32) -> f64 {
+    let scale = 10f64.powi(decimals);
+    (x * scale).round() / scale
 }
 
 /// Two fields side by side.
@@ -313,6 +320,31 @@ pub fn need_group(props: &InputsProps) -> Html {
 /// The survey area and the aircraft's limits.
 #[function_component(SurveyGroup)]
 pub fn survey_group(props: &InputsProps) -> Html {
+    let locating = use_state(|| Option::<String>::None);
+    let on_locate = {
+        let dispatch = props.dispatch.clone();
+        let locating = locating.clone();
+        Callback::from(move |_| {
+            locating.set(Some("Asking this device for its position…".to_string()));
+            let dispatch = dispatch.clone();
+            let report = locating.clone();
+            let asked = browser::current_position(move |result| match result {
+                Ok((lat, lon)) => {
+                    dispatch.emit(Action::Set(vec![
+                        ("lat".into(), format_number(round_to(lat, 6))),
+                        ("lon".into(), format_number(round_to(lon, 6))),
+                    ]));
+                    report.set(Some("Origin set to this device's position.".to_string()));
+                }
+                Err(message) => report.set(Some(message)),
+            });
+            if !asked {
+                locating.set(Some(
+                    "This browser cannot tell the device's position; type the origin instead.".to_string(),
+                ));
+            }
+        })
+    };
     html! {
         <fieldset class="group" id="group-survey">
             <legend>{ "Survey area and aircraft" }</legend>
@@ -322,6 +354,10 @@ pub fn survey_group(props: &InputsProps) -> Html {
             { pair(field(props, "endur", None), field(props, "turn", None)) }
             { field(props, "mb", None) }
             { pair(field(props, "lat", None), field(props, "lon", None)) }
+            <p class="locate">
+                <button type="button" id="locate" onclick={on_locate}>{ "Use this device's position" }</button>
+                if let Some(message) = &*locating { <span class="note" role="status">{ format!(" {message}") }</span> }
+            </p>
             { field(props, "hdg", None) }
         </fieldset>
     }
