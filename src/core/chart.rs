@@ -96,22 +96,17 @@ fn axis_unit(max_m: f64, units: Units) -> (&'static str, f64) {
     }
 }
 
-/// Ticks from 0 to `max_m` in display units, mapped by `to_px`.
-fn ticks(max_m: f64, units: Units, to_px: impl Fn(f64) -> f64) -> (Vec<Tick>, &'static str) {
-    let (name, per) = axis_unit(max_m, units);
-    let span = max_m / per;
-    let step = nice_step(span, 5.0);
-    let mut out = Vec::new();
-    let mut i = 0.0;
-    while i * step <= span * (1.0 + 1e-9) && out.len() < 20 {
-        let value = i * step;
-        out.push(Tick {
-            at: to_px(value * per),
-            label: significant(value),
-        });
-        i += 1.0;
-    }
-    (out, name)
+/// Ticks every `step_m` from 0 to `max_m`, labelled in the display unit of `per` metres and mapped
+/// by `to_px`; at most 20.
+fn ticks(max_m: f64, step_m: f64, per: f64, to_px: impl Fn(f64) -> f64) -> Vec<Tick> {
+    (0..20)
+        .map(|i| f64::from(i) * step_m)
+        .take_while(|v| *v <= max_m * (1.0 + 1e-9))
+        .map(|v| Tick {
+            at: to_px(v),
+            label: significant(v / per),
+        })
+        .collect()
 }
 
 /// The largest x the chart shows: enough to see the current position, the reach and, for a
@@ -137,7 +132,7 @@ pub fn build(sweep: &Sweep, need_m: Option<f64>, reach_m: Option<f64>, crossings
 
     let envelope_max = evaluations.iter().map(|e| e.limit_m).fold(0.0, f64::max);
     let y_wanted = envelope_max.max(need_m.unwrap_or(0.0) * 1.2).max(1e-6);
-    let (_, y_per) = axis_unit(y_wanted, units);
+    let (y_unit, y_per) = axis_unit(y_wanted, units);
     let y_step = nice_step(y_wanted / y_per, 5.0) * y_per;
     let y_max = (y_wanted / y_step).ceil() * y_step;
 
@@ -170,20 +165,9 @@ pub fn build(sweep: &Sweep, need_m: Option<f64>, reach_m: Option<f64>, crossings
         .collect();
     let envelope = path(&mut evaluations.iter().map(|e| e.limit_m));
 
-    let (x_ticks, x_unit) = ticks(x_max, units, to_x);
-    let (y_ticks, y_unit) = {
-        let (name, per) = axis_unit(y_wanted, units);
-        let mut out = Vec::new();
-        let mut v = 0.0;
-        while v <= y_max * (1.0 + 1e-9) && out.len() < 20 {
-            out.push(Tick {
-                at: to_y(v),
-                label: significant(v / per),
-            });
-            v += y_step;
-        }
-        (out, name)
-    };
+    let (x_unit, x_per) = axis_unit(x_max, units);
+    let x_ticks = ticks(x_max, nice_step(x_max / x_per, 5.0) * x_per, x_per, to_x);
+    let y_ticks = ticks(y_max, y_step, y_per, to_y);
 
     let mut x_markers = vec![Marker {
         kind: "current",

@@ -127,8 +127,8 @@ impl Sweep {
     /// The greatest position along the axis at which the governing limit is at most `need_m`.
     pub fn reach(&self, need_m: f64) -> Reach {
         let meets = |e: &Evaluation| e.limit_m <= need_m;
-        let (first_x, first) = match self.table.first() {
-            Some(point) => *point,
+        let first = match self.table.first() {
+            Some((_, evaluation)) => *evaluation,
             None => {
                 return Reach::Nowhere {
                     forbidden_by: Limit::Sampling,
@@ -144,7 +144,6 @@ impl Sweep {
                 } else {
                     first.governing
                 };
-                let _ = first_x;
                 Reach::Nowhere {
                     forbidden_by,
                     best_m: first.limit_m,
