@@ -2,10 +2,10 @@
 //! Goals (issue 3): under 20 µs and under 2 ms natively. Run with `cargo bench --bench engine`.
 
 use criterion::{criterion_group, criterion_main, Criterion};
-use sharpfield::core::demo;
-use sharpfield::core::engine::evaluate;
-use sharpfield::core::report::Plan;
-use sharpfield::core::solve::{Axis, Sweep};
+use sharpfield::core::contract::report::Plan;
+use sharpfield::core::physics::engine::evaluate;
+use sharpfield::core::planning::solve::{Axis, Sweep};
+use sharpfield::core::presets::demo;
 use std::hint::black_box;
 
 fn engine(c: &mut Criterion) {
@@ -14,7 +14,7 @@ fn engine(c: &mut Criterion) {
     c.bench_function("evaluate (power-law air)", |b| b.iter(|| evaluate(black_box(&setup))));
 
     let mut hv = demo::pasture_survey();
-    hv.air = sharpfield::core::scenario::AirModel::Hv57;
+    hv.air = sharpfield::core::contract::scenario::AirModel::Hv57;
     let hv_setup = hv.setup();
     c.bench_function("evaluate (Hufnagel-Valley air)", |b| {
         b.iter(|| evaluate(black_box(&hv_setup)))

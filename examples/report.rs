@@ -1,7 +1,7 @@
 //! Prints the report of a scenario as JSON: `cargo run --release --example report -- 'QUERY'`,
 //! or `-` to read one query per line from standard input and print one JSON object per line.
 
-use sharpfield::core::report::report_json;
+use sharpfield::core::contract::report::report_json;
 use std::io::{BufRead, Write};
 
 fn main() {

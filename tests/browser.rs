@@ -9,9 +9,9 @@
 //! (scripts/test does; webdriver.json holds Chromium's flags).
 
 use serde_json::Value;
-use sharpfield::core::demo;
-use sharpfield::core::report::{report_for_query, Plan, Report};
-use sharpfield::core::scenario::RawScenario;
+use sharpfield::core::contract::report::{report_for_query, Plan, Report};
+use sharpfield::core::contract::scenario::RawScenario;
+use sharpfield::core::presets::demo;
 use sharpfield::ui::app::App;
 use std::time::Duration;
 use wasm_bindgen::JsCast;

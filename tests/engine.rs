@@ -9,10 +9,10 @@ mod common;
 
 use proptest::prelude::*;
 use proptest::test_runner::FileFailurePersistence;
-use sharpfield::core::engine::{evaluate, Limit, Limits, Setup};
-use sharpfield::core::geometry::Geometry;
-use sharpfield::core::solve::{Axis, Sweep};
-use sharpfield::core::turbulence::Profile;
+use sharpfield::core::physics::engine::{evaluate, Limit, Limits, Setup};
+use sharpfield::core::physics::geometry::Geometry;
+use sharpfield::core::physics::turbulence::Profile;
+use sharpfield::core::planning::solve::{Axis, Sweep};
 use std::f64::consts::PI;
 
 fn check(case: &str, actual: f64, expected: f64) {

@@ -1,10 +1,10 @@
 //! Numbers for people: display units and typing in imperial units. Conversion factors are the
 //! international foot (0.3048 m) and inch (0.0254 m) of 1959, and the statute mile of 1609.344 m.
 
-use sharpfield::core::format::{
+use sharpfield::core::contract::scenario::{number_spec, Scenario, Units};
+use sharpfield::core::words::format::{
     entry_matches, entry_range, entry_unit, from_entry_text, length, significant, to_entry_text,
 };
-use sharpfield::core::scenario::{number_spec, Scenario, Units};
 
 fn check_length(metres: f64, units: Units, expected: &str) {
     assert_eq!(length(metres, units), expected, "{metres} m in {units:?}");

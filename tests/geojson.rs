@@ -7,11 +7,11 @@ mod common;
 use common::{close, plan};
 use proptest::prelude::*;
 use serde_json::Value;
-use sharpfield::core::demo::pasture_survey;
-use sharpfield::core::geojson::{
+use sharpfield::core::contract::scenario::Scenario;
+use sharpfield::core::formats::geojson::{
     make_counter_clockwise, signed_area_deg2, survey_geojson, survey_geojson_checked, ExportProblem,
 };
-use sharpfield::core::scenario::Scenario;
+use sharpfield::core::presets::demo::pasture_survey;
 
 fn export(scenario: &Scenario) -> Value {
     let text = survey_geojson(scenario, &plan(scenario)).expect("origin and area are given");

@@ -1,9 +1,9 @@
 //! Saved scenarios: the stored format reads back what it wrote, and nothing is dropped when the
 //! stored text is corrupt, partial, older or newer.
 
-use sharpfield::core::demo;
-use sharpfield::core::library::{Library, FORMAT_VERSION};
-use sharpfield::core::scenario::Scenario;
+use sharpfield::core::contract::scenario::Scenario;
+use sharpfield::core::formats::library::{Library, FORMAT_VERSION};
+use sharpfield::core::presets::demo;
 
 fn library_of_demos() -> Library {
     let mut library = Library::default();

@@ -5,7 +5,7 @@
 //! `shared/reference/resolution-model.md` §2 (Born & Wolf, *Principles of Optics*, §8.5;
 //! Goodman, *Introduction to Fourier Optics*, ch. 6).
 
-use sharpfield::core::optics::{self, J1_FIRST_ZERO, RAYLEIGH_FACTOR};
+use sharpfield::core::physics::optics::{self, J1_FIRST_ZERO, RAYLEIGH_FACTOR};
 use std::f64::consts::PI;
 
 /// Asserts that `actual` is within `tolerance` (absolute) of `expected`, naming the case.

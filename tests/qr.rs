@@ -2,8 +2,8 @@
 //! (a Rust port of the quirc QR decoder), which shares no code with the encoder we use
 //! (`qrcodegen`, Project Nayuki).
 
-use sharpfield::core::demo;
-use sharpfield::core::qr::{qr_svg, QUIET_ZONE};
+use sharpfield::core::formats::qr::{qr_svg, QUIET_ZONE};
+use sharpfield::core::presets::demo;
 
 /// Renders the module grid at `scale` pixels per module and decodes it with rqrr.
 fn decode(modules: &[bool], size: usize, scale: usize) -> Vec<String> {

@@ -5,8 +5,8 @@
 use proptest::prelude::*;
 use proptest::test_runner::FileFailurePersistence;
 use serde_json::Value;
-use sharpfield::core::report::{report_for_query, report_json};
-use sharpfield::core::scenario::{
+use sharpfield::core::contract::report::{report_for_query, report_json};
+use sharpfield::core::contract::scenario::{
     number_spec, AirModel, Offset, RawScenario, Scenario, Units, KEYS, NAME_MAX_CHARS, NUMBER_SPECS, REQUIRED_KEYS,
 };
 

@@ -6,11 +6,11 @@ mod common;
 
 use proptest::prelude::*;
 use proptest::test_runner::FileFailurePersistence;
-use sharpfield::core::demo;
-use sharpfield::core::engine::{evaluate, Limit, Setup};
-use sharpfield::core::geometry::Geometry;
-use sharpfield::core::solve::{describe_reach, focal_needed, Axis, Crossing, FocalNeed, Reach, Sweep};
-use sharpfield::core::turbulence::Profile;
+use sharpfield::core::physics::engine::{evaluate, Limit, Setup};
+use sharpfield::core::physics::geometry::Geometry;
+use sharpfield::core::physics::turbulence::Profile;
+use sharpfield::core::planning::solve::{describe_reach, focal_needed, Axis, Crossing, FocalNeed, Reach, Sweep};
+use sharpfield::core::presets::demo;
 
 /// A small step, relative, well above the solves' bisection tolerance (1e−9).
 const STEP: f64 = 1e-6;

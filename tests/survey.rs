@@ -6,10 +6,12 @@ mod common;
 
 use common::{close, plan};
 use proptest::prelude::*;
-use sharpfield::core::demo::pasture_survey;
-use sharpfield::core::report::report_json;
-use sharpfield::core::scenario::{Offset, Scenario};
-use sharpfield::core::survey::{layout, overlap_guidance, SurveyPlan, MAX_DRAWN_LINES, MAX_LINES, MAX_PHOTOS};
+use sharpfield::core::contract::report::report_json;
+use sharpfield::core::contract::scenario::{Offset, Scenario};
+use sharpfield::core::planning::survey::{
+    layout, overlap_guidance, SurveyPlan, MAX_DRAWN_LINES, MAX_LINES, MAX_PHOTOS,
+};
+use sharpfield::core::presets::demo::pasture_survey;
 
 fn has_note(plan: &SurveyPlan, words: &str) -> bool {
     plan.survey_notes.iter().any(|n| n.contains(words))

@@ -4,7 +4,7 @@
 //! 1958 (AD220160) for the cycles; the TTPF P = (N/N50)^E / (1 + (N/N50)^E), E = 2.7 + 0.7·N/N50,
 //! with its published checks 0.107734, 0.944899 and P = 0.8 at N/N50 = 1.452104.
 
-use sharpfield::core::target::{self, Task};
+use sharpfield::core::physics::target::{self, Task};
 
 fn check(case: &str, actual: f64, expected: f64, tolerance: f64) {
     assert!(

@@ -6,7 +6,7 @@
 //! *Electromagnetic Wave Propagation in Turbulence* (HV table); L. C. Andrews, *Field Guide to
 //! Atmospheric Optics* (SLC).
 
-use sharpfield::core::turbulence::{self, Profile, SlantPath};
+use sharpfield::core::physics::turbulence::{self, Profile, SlantPath};
 use std::f64::consts::PI;
 
 /// Asserts |actual − expected| ≤ tolerance·|expected|, naming the case.

@@ -1,22 +1,16 @@
-//! The pure core: physics, planning and formatting in plain Rust.
+//! The pure core: physics, planning, words, formats, the contract and presets, in plain Rust.
 //!
 //! Architecture invariant: nothing under `core` imports yew, web-sys, gloo or wasm-bindgen, does
 //! IO, or panics on any input. The browser shell (`crate::ui`) is a thin layer over it, and the
 //! native tests and the `report` example exercise it directly.
+//!
+//! The folders are layers, each importing only those listed before it (DEVELOPERS.md, "Layers";
+//! `tests/layers.rs` checks it): `physics` ← `planning` ← `words` ← `formats` ← `contract` ←
+//! `presets`.
 
-pub mod cautions;
-pub mod chart;
-pub mod demo;
-pub mod engine;
-pub mod format;
-pub mod geojson;
-pub mod geometry;
-pub mod library;
-pub mod optics;
-pub mod qr;
-pub mod report;
-pub mod scenario;
-pub mod solve;
-pub mod survey;
-pub mod target;
-pub mod turbulence;
+pub mod contract;
+pub mod formats;
+pub mod physics;
+pub mod planning;
+pub mod presets;
+pub mod words;

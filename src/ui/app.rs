@@ -1,10 +1,10 @@
 //! The root component: one state, the input groups, the results, and the browser effects.
 
-use crate::core::chart;
-use crate::core::demo;
-use crate::core::format;
-use crate::core::qr::qr_svg;
-use crate::core::scenario::RawScenario;
+use crate::core::contract::scenario::RawScenario;
+use crate::core::formats::qr::qr_svg;
+use crate::core::presets::demo;
+use crate::core::words::chart;
+use crate::core::words::format;
 use crate::ui::browser;
 use crate::ui::components::cautions::Cautions;
 use crate::ui::components::chart::LimitsChart;
@@ -151,7 +151,7 @@ pub fn app() -> Html {
                 if !report.ignored.is_empty() {
                     <p class="note">{ format!("Kept but not used (unknown keys in the link): {}", report.ignored.join(", ")) }</p>
                 }
-                { for report.errors.iter().filter(|e| !["name"].contains(&e.key.as_str()) && crate::core::scenario::number_spec(&e.key).is_none()).map(|e| html! {
+                { for report.errors.iter().filter(|e| !["name"].contains(&e.key.as_str()) && crate::core::contract::scenario::number_spec(&e.key).is_none()).map(|e| html! {
                     <p class="error" role="alert" data-error-key={e.key.clone()}>{ e.message.clone() }</p>
                 }) }
             </form>

@@ -1,6 +1,6 @@
 //! Browser services: the address bar. Every call tolerates a browser that refuses it.
 
-use crate::core::scenario::RawScenario;
+use crate::core::contract::scenario::RawScenario;
 
 /// The scenario in the page's address, if it carries one.
 pub fn scenario_from_location() -> Option<RawScenario> {

@@ -1,7 +1,7 @@
 //! The app's one state: the scenario's raw text and the plan computed from it.
 
-use crate::core::report::Plan;
-use crate::core::scenario::RawScenario;
+use crate::core::contract::report::Plan;
+use crate::core::contract::scenario::RawScenario;
 use std::rc::Rc;
 use yew::Reducible;
 

@@ -4,11 +4,11 @@
 #![allow(dead_code)]
 
 use proptest::prelude::*;
-use sharpfield::core::engine::{evaluate, Setup};
-use sharpfield::core::geometry::Geometry;
-use sharpfield::core::scenario::Scenario;
-use sharpfield::core::survey::{plan_survey, SurveyPlan};
-use sharpfield::core::turbulence::Profile;
+use sharpfield::core::contract::scenario::Scenario;
+use sharpfield::core::physics::engine::{evaluate, Setup};
+use sharpfield::core::physics::geometry::Geometry;
+use sharpfield::core::physics::turbulence::Profile;
+use sharpfield::core::planning::survey::{plan_survey, SurveyPlan};
 
 /// Log-uniform in [lo, hi], ends included.
 pub fn log_range(lo: f64, hi: f64) -> impl Strategy<Value = f64> {

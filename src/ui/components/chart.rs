@@ -1,7 +1,7 @@
 //! The chart of the four limits and the governing envelope against height or ground distance.
 
-use crate::core::chart::{Chart, HEIGHT, WIDTH};
-use crate::core::engine::Limit;
+use crate::core::physics::engine::Limit;
+use crate::core::words::chart::{Chart, HEIGHT, WIDTH};
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;

@@ -1,7 +1,7 @@
 //! A labelled text input that keeps exactly what the person types and shows the field's error.
 
-use crate::core::format::{entry_matches, entry_range, from_entry_text, to_entry_text, EntryUnit};
-use crate::core::scenario::number_spec;
+use crate::core::contract::scenario::number_spec;
+use crate::core::words::format::{entry_matches, entry_range, from_entry_text, to_entry_text, EntryUnit};
 use web_sys::{HtmlInputElement, HtmlSelectElement};
 use yew::prelude::*;
 

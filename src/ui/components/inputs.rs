@@ -2,9 +2,9 @@
 //! what is needed, and the survey area.
 
 use super::field::{Choice, NumberField};
-use crate::core::demo::{BANDS, SENSOR_FORMATS};
-use crate::core::format;
-use crate::core::scenario::{format_number, Units};
+use crate::core::contract::scenario::{format_number, Units};
+use crate::core::presets::demo::{BANDS, SENSOR_FORMATS};
+use crate::core::words::format;
 use crate::ui::browser;
 use crate::ui::state::{Action, State};
 use std::rc::Rc;

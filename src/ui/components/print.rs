@@ -1,13 +1,13 @@
 //! The one-page flight plan for paper (A4 and US Letter). Hidden on screen; the print style sheet
 //! shows it alone. Built from the same plan as the screen, laid out for paper.
 
-use crate::core::chart::Chart;
-use crate::core::engine::Limit;
-use crate::core::format;
-use crate::core::qr::QrSvg;
-use crate::core::scenario::{AirModel, Offset};
-use crate::core::solve::describe_reach;
-use crate::core::survey::layout;
+use crate::core::contract::scenario::{AirModel, Offset};
+use crate::core::formats::qr::QrSvg;
+use crate::core::physics::engine::Limit;
+use crate::core::planning::solve::describe_reach;
+use crate::core::planning::survey::layout;
+use crate::core::words::chart::Chart;
+use crate::core::words::format;
 use crate::ui::browser;
 use crate::ui::components::chart::chart_svg;
 use crate::ui::components::survey::diagram;

@@ -1,9 +1,9 @@
 //! The four limits side by side, the governing one in words, and what to change.
 
-use crate::core::engine::Limit;
-use crate::core::format;
-use crate::core::report::inputs_of;
-use crate::core::scenario::number_spec;
+use crate::core::contract::report::inputs_of;
+use crate::core::contract::scenario::number_spec;
+use crate::core::physics::engine::Limit;
+use crate::core::words::format;
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;

@@ -1,8 +1,8 @@
 //! Share, save and print: the link, a QR code of it, the saved scenarios, and the printed plan.
 
-use crate::core::library::{Library, ReadOutcome};
-use crate::core::qr::QrSvg;
-use crate::core::scenario::RawScenario;
+use crate::core::contract::scenario::RawScenario;
+use crate::core::formats::library::{Library, ReadOutcome};
+use crate::core::formats::qr::QrSvg;
 use crate::ui::browser;
 use crate::ui::state::{Action, State};
 use std::rc::Rc;

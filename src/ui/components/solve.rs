@@ -1,9 +1,9 @@
 //! The backward solve: from "I need X on the ground" to the greatest height or range, the lens that
 //! would do, and where the limits cross.
 
-use crate::core::engine::Limit;
-use crate::core::format;
-use crate::core::solve::{describe_reach, Crossing, FocalNeed, Reach};
+use crate::core::physics::engine::Limit;
+use crate::core::planning::solve::{describe_reach, Crossing, FocalNeed, Reach};
+use crate::core::words::format;
 use crate::ui::components::results::value;
 use crate::ui::state::State;
 use std::rc::Rc;

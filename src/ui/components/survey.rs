@@ -1,9 +1,9 @@
 //! The survey panel: footprint, overlaps, lines, photos, speed limits, flight time, the layout
 //! diagram and the GeoJSON export.
 
-use crate::core::format;
-use crate::core::geojson::survey_geojson_checked;
-use crate::core::survey::{layout, Layout};
+use crate::core::formats::geojson::survey_geojson_checked;
+use crate::core::planning::survey::{layout, Layout};
+use crate::core::words::format;
 use crate::ui::browser;
 use crate::ui::components::results::value;
 use crate::ui::state::State;
@@ -33,7 +33,7 @@ fn maybe(key: &'static str, v: Option<f64>, text: impl Fn(f64) -> String) -> Htm
 }
 
 /// The layout drawn to scale: area, flight lines with direction and order, first footprints.
-pub fn diagram(layout: &Layout, units: crate::core::scenario::Units, id: &str) -> Html {
+pub fn diagram(layout: &Layout, units: crate::core::contract::scenario::Units, id: &str) -> Html {
     let arrow_id = format!("{id}-arrow");
     let b = layout.bounds;
     let pad = 0.04 * b.width.max(b.height).max(1.0);

@@ -1,6 +1,6 @@
 //! What a target will look like: Johnson cycles and the chance of each task.
 
-use crate::core::format;
+use crate::core::words::format;
 use crate::ui::components::results::value;
 use crate::ui::state::State;
 use std::rc::Rc;

@@ -4,9 +4,9 @@
 //! at the target in the plane normal to the line of sight, so the four compare as they are; the
 //! ground-plane stretch of the sampling figure for oblique views is reported beside them.
 
-use crate::core::geometry::Geometry;
-use crate::core::optics;
-use crate::core::turbulence::{self, Profile, SlantPath};
+use crate::core::physics::geometry::Geometry;
+use crate::core::physics::optics;
+use crate::core::physics::turbulence::{self, Profile, SlantPath};
 use serde::Serialize;
 
 /// Everything the engine needs, in SI units.

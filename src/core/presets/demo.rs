@@ -1,7 +1,7 @@
 //! Demo scenarios of our own invention, shown when the page opens with no scenario in its URL.
 //! The farm, the site and the cameras are made up; sensors are described as generic formats.
 
-use crate::core::scenario::{AirModel, Offset, Scenario, Units};
+use crate::core::contract::scenario::{AirModel, Offset, Scenario, Units};
 
 /// A generic sensor format: the camera presets offered in the planner.
 #[derive(Clone, Copy, Debug, PartialEq)]

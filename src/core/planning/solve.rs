@@ -5,9 +5,9 @@
 //! and refines the last crossing by bisection, so a profile that makes turbulence shrink with
 //! height is handled as well as the plain cases.
 
-use crate::core::engine::{evaluate, Evaluation, Limit, Setup};
-use crate::core::geometry::Geometry;
-use crate::core::optics::RAYLEIGH_FACTOR;
+use crate::core::physics::engine::{evaluate, Evaluation, Limit, Setup};
+use crate::core::physics::geometry::Geometry;
+use crate::core::physics::optics::RAYLEIGH_FACTOR;
 use serde::Serialize;
 
 /// What the backward solve varies.

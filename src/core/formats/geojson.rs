@@ -10,8 +10,8 @@
 //! exactly their planned lengths; on a curved surface the fourth side differs from the width by a
 //! little (under a millimetre for a field of a few kilometres, centimetres at tens of kilometres).
 
-use crate::core::scenario::Scenario;
-use crate::core::survey::{flies_forward, SurveyPlan};
+use crate::core::contract::scenario::Scenario;
+use crate::core::planning::survey::{flies_forward, SurveyPlan};
 use geographiclib_rs::{DirectGeodesic, Geodesic, InverseGeodesic};
 use serde_json::{json, Map, Value};
 

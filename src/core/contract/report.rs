@@ -2,13 +2,13 @@
 //! (`shared/reference/url-and-report.md`). The `report` example prints it as JSON and the page
 //! shows the same values, each tagged with its field name.
 
-use crate::core::cautions::{self, Caution, CautionInputs};
-use crate::core::engine::{evaluate, Evaluation, Limit, Setup};
-use crate::core::optics;
-use crate::core::scenario::{FieldError, Offset, RawScenario, Scenario, CONTRACT_VERSION};
-use crate::core::solve::{focal_needed, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep};
-use crate::core::survey::{plan_survey, SurveyPlan};
-use crate::core::target::{person_identification_limit_m, task_chances, TaskChance};
+use crate::core::contract::scenario::{FieldError, Offset, RawScenario, Scenario, CONTRACT_VERSION};
+use crate::core::physics::engine::{evaluate, Evaluation, Limit, Setup};
+use crate::core::physics::optics;
+use crate::core::physics::target::{person_identification_limit_m, task_chances, TaskChance};
+use crate::core::planning::cautions::{self, Caution, CautionInputs};
+use crate::core::planning::solve::{focal_needed, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep};
+use crate::core::planning::survey::{plan_survey, SurveyPlan};
 use serde::Serialize;
 
 /// Everything the planner computes for one scenario.

@@ -1,7 +1,7 @@
 //! Numbers for people: lengths, speeds and times in sensible units, metric or imperial.
 //! The engine and the URL stay SI; only this module knows feet and miles.
 
-use crate::core::scenario::Units;
+use crate::core::contract::scenario::Units;
 
 /// Metres in one international foot (exact by definition, 1959).
 pub const METRES_PER_FOOT: f64 = 0.3048;
@@ -158,7 +158,7 @@ fn figures(x: f64, n: usize) -> f64 {
 /// when it reads as a number, as it is otherwise (an invalid entry stays visible as typed).
 pub fn to_entry_text(si_text: &str, unit: EntryUnit) -> String {
     match si_text.trim().parse::<f64>() {
-        Ok(v) if v.is_finite() => crate::core::scenario::format_number(figures(v * unit.per_si, 6)),
+        Ok(v) if v.is_finite() => crate::core::contract::scenario::format_number(figures(v * unit.per_si, 6)),
         _ => si_text.to_string(),
     }
 }
@@ -168,7 +168,7 @@ pub fn to_entry_text(si_text: &str, unit: EntryUnit) -> String {
 /// number, as typed otherwise, so that validation names the problem.
 pub fn from_entry_text(text: &str, unit: EntryUnit) -> String {
     match text.trim().parse::<f64>() {
-        Ok(v) if v.is_finite() => crate::core::scenario::format_number(figures(v / unit.per_si, 10)),
+        Ok(v) if v.is_finite() => crate::core::contract::scenario::format_number(figures(v / unit.per_si, 10)),
         _ => text.to_string(),
     }
 }
@@ -187,7 +187,7 @@ pub fn entry_matches(shown: &str, si_text: &str, unit: EntryUnit) -> bool {
 }
 
 /// The accepted range of a key in the unit it is typed in, e.g. "from 0.328 to 65600 ft".
-pub fn entry_range(spec: &crate::core::scenario::NumberSpec, unit: EntryUnit) -> String {
+pub fn entry_range(spec: &crate::core::contract::scenario::NumberSpec, unit: EntryUnit) -> String {
     format!(
         "from {} to {} {}",
         significant(spec.min * unit.per_si),

@@ -7,8 +7,8 @@
 //! range. A bad value never stops the rest from loading: its default is used and the error says so.
 //! [`Scenario::setup`] then converts to SI for the engine.
 
-use crate::core::geometry::Geometry;
-use crate::core::turbulence::Profile;
+use crate::core::physics::geometry::Geometry;
+use crate::core::physics::turbulence::Profile;
 use serde::Serialize;
 
 /// Version of the URL and report contract that this code writes.
@@ -370,7 +370,7 @@ impl Scenario {
     /// Validates raw text into a scenario; every rejected value is named in the returned errors
     /// and replaced by the default's value, so the rest still loads.
     pub fn from_raw(raw: &RawScenario) -> (Scenario, Vec<FieldError>) {
-        let d = crate::core::demo::pasture_survey();
+        let d = crate::core::presets::demo::pasture_survey();
         let mut r = Reader {
             raw,
             errors: Vec::new(),
@@ -618,8 +618,8 @@ impl Scenario {
     }
 
     /// Everything the resolution engine needs, in SI units.
-    pub fn setup(&self) -> crate::core::engine::Setup {
-        crate::core::engine::Setup {
+    pub fn setup(&self) -> crate::core::physics::engine::Setup {
+        crate::core::physics::engine::Setup {
             sensor_width_m: self.sensor_width_mm * 1e-3,
             sensor_height_m: self.sensor_height_mm * 1e-3,
             cols: self.cols.max(1),

@@ -7,9 +7,9 @@
 //! finite numbers, or `None` beside a note that says why. Counts are capped before anything uses
 //! them, nothing is looped over or allocated per photo, and no division can meet a zero.
 
-use crate::core::engine::Evaluation;
-use crate::core::format::significant;
-use crate::core::scenario::{Offset, Scenario};
+use crate::core::contract::scenario::{Offset, Scenario};
+use crate::core::physics::engine::Evaluation;
+use crate::core::words::format::significant;
 use serde::Serialize;
 
 /// The most flight lines a plan counts; beyond it the counts are withheld with a note, since such

@@ -1,0 +1,8 @@
+//! Physics: the viewing geometry, optics, turbulence, the four limits and the target criteria.
+//! Imports nothing else of the core.
+
+pub mod engine;
+pub mod geometry;
+pub mod optics;
+pub mod target;
+pub mod turbulence;

@@ -1,0 +1,3 @@
+//! Presets: invented demo scenarios, generic sensor formats and bands.
+
+pub mod demo;

@@ -1,0 +1,4 @@
+//! Words: units, numbers for people, and the chart's geometry and text.
+
+pub mod chart;
+pub mod format;
