@@ -1,10 +1,10 @@
 //! Numbers for people: display units and typing in imperial units. Conversion factors are the
 //! international foot (0.3048 m) and inch (0.0254 m) of 1959, and the statute mile of 1609.344 m.
 
-use sharpfield::core::contract::scenario::{number_spec, Scenario, Units};
-use sharpfield::core::words::format::{
-    entry_matches, entry_range, entry_unit, from_entry_text, length, significant, to_entry_text,
-};
+use sharpfield::core::contract::inputs::{entry_unit, input};
+use sharpfield::core::contract::scenario::Scenario;
+use sharpfield::core::words::format::{length, significant};
+use sharpfield::core::words::units::{entry_matches, entry_range, from_entry_text, to_entry_text, Units};
 
 fn check_length(metres: f64, units: Units, expected: &str) {
     assert_eq!(length(metres, units), expected, "{metres} m in {units:?}");
@@ -71,6 +71,6 @@ fn text_that_is_no_number_is_passed_on_as_typed_and_rejected_with_the_range() {
         let (_, errors) = Scenario::from_query(&format!("h={}", typed.replace(' ', "+")));
         assert!(errors.iter().any(|e| e.key == "h"), "{typed:?} must be rejected");
     }
-    let spec = number_spec("h").expect("h has a spec");
-    assert_eq!(entry_range(spec, feet), "from 0.328 to 65617 ft");
+    let (min, max) = input("h").and_then(|i| i.range()).expect("h has a range");
+    assert_eq!(entry_range(min, max, feet), "from 0.328 to 65617 ft");
 }

@@ -5,10 +5,20 @@
 use proptest::prelude::*;
 use proptest::test_runner::FileFailurePersistence;
 use serde_json::Value;
+use sharpfield::core::contract::inputs::{input, Input, INPUTS, NAME_MAX_CHARS};
 use sharpfield::core::contract::report::{report_for_query, report_json};
-use sharpfield::core::contract::scenario::{
-    number_spec, AirModel, Offset, RawScenario, Scenario, Units, KEYS, NAME_MAX_CHARS, NUMBER_SPECS, REQUIRED_KEYS,
-};
+use sharpfield::core::contract::scenario::{AirModel, Offset, RawScenario, Scenario};
+use sharpfield::core::words::units::Units;
+
+/// Every key of the contract, in the table's order.
+fn keys() -> Vec<&'static str> {
+    INPUTS.iter().map(|i| i.key).collect()
+}
+
+/// The table's entry for `key`.
+fn spec(key: &str) -> &'static Input {
+    input(key).unwrap_or_else(|| panic!("no entry for {key}"))
+}
 
 /// A valid query with every required key, to which a test adds the key under test.
 const BASE: &str = "sw=13.2&sh=8.8&cols=5472&rows=3648&focal=8.8&fnum=4&h=80";
@@ -164,7 +174,7 @@ fn check_report(query: &str) -> Result<(), String> {
     for error in errors {
         let key = error["key"].as_str().ok_or("error without a key")?;
         let message = error["message"].as_str().ok_or("error without a message")?;
-        if message.is_empty() || !(given.iter().any(|k| k == key) || REQUIRED_KEYS.contains(&key)) {
+        if message.is_empty() || !(given.iter().any(|k| k == key) || spec(key).required) {
             return Err(format!("error {error} names no given key for {query:?}"));
         }
     }
@@ -260,7 +270,7 @@ fn awkward_value() -> impl Strategy<Value = String> {
 
 fn any_key() -> impl Strategy<Value = String> {
     prop_oneof![
-        4 => prop::sample::select(KEYS).prop_map(String::from),
+        4 => prop::sample::select(keys()).prop_map(String::from),
         1 => "[a-z]{1,5}",
         1 => any::<String>(),
         1 => prop::sample::select(&["", " ", "%", "&", "=", " h", "H", "h ", "?h", "sw%00"][..]).prop_map(String::from),
@@ -279,7 +289,7 @@ fn any_query() -> impl Strategy<Value = String> {
         }),
         pairs().prop_map(|pairs| RawScenario { pairs }.to_query()),
         // A valid base with awkward values for some keys.
-        prop::collection::vec((prop::sample::select(KEYS), awkward_value()), 0..8).prop_map(|pairs| {
+        prop::collection::vec((prop::sample::select(keys()), awkward_value()), 0..8).prop_map(|pairs| {
             let mut raw = RawScenario::from_query(BASE);
             for (k, v) in pairs {
                 raw.set(k, &v);
@@ -318,9 +328,9 @@ proptest! {
 /// Any value in a key's accepted range: the ends, log-uniform and uniform values (which carry all
 /// 17 significant digits), and whole numbers for the pixel counts.
 fn in_range(key: &'static str) -> BoxedStrategy<f64> {
-    let spec = number_spec(key).unwrap_or_else(|| panic!("no spec for {key}"));
-    let (min, max) = (spec.min, spec.max);
-    if spec.integer {
+    let spec = spec(key);
+    let (min, max) = spec.range().unwrap_or_else(|| panic!("{key} takes no number"));
+    if spec.is_whole() {
         return (min as u32..=max as u32).prop_map(f64::from).boxed();
     }
     let uniform = (0.0f64..=1.0).prop_map(move |u| (min + (max - min) * u).clamp(min, max));
@@ -342,7 +352,7 @@ fn extra_keys() -> impl Strategy<Value = Vec<(String, String)>> {
         pairs
             .into_iter()
             .filter(|(k, _)| {
-                let fresh = !KEYS.contains(&k.as_str()) && !seen.contains(k);
+                let fresh = !keys().contains(&k.as_str()) && !seen.contains(k);
                 seen.push(k.clone());
                 fresh
             })
@@ -516,7 +526,7 @@ fn base_with(key: &str, value: &str) -> String {
 /// and that the rest of the scenario still loads.
 fn check_rejected(key: &str, value: &str) {
     let (scenario, errors) = Scenario::from_query(&base_with(key, value));
-    let spec = number_spec(key).unwrap_or_else(|| panic!("no spec for {key}"));
+    let spec = spec(key);
     assert_eq!(errors.len(), 1, "{key}={value:?}: {errors:?}");
     let error = &errors[0];
     assert_eq!(error.key, key, "{key}={value:?}: {errors:?}");
@@ -536,9 +546,10 @@ fn check_rejected(key: &str, value: &str) {
 
 #[test]
 fn bad_values_name_the_key_and_the_accepted_range() {
-    for spec in NUMBER_SPECS {
-        let below = spec.min - spec.min.abs().max(1.0);
-        let above = spec.max * 2.0 + 1.0;
+    for spec in INPUTS.iter().filter(|i| i.is_number()) {
+        let (min, max) = spec.range().unwrap_or_default();
+        let below = min - min.abs().max(1.0);
+        let above = max * 2.0 + 1.0;
         let mut bad = vec![
             below.to_string(),
             above.to_string(),
@@ -551,8 +562,8 @@ fn bad_values_name_the_key_and_the_accepted_range() {
             "%".into(),
             "１２".into(),
         ];
-        if spec.integer {
-            bad.push(format!("{}.5", spec.min));
+        if spec.is_whole() {
+            bad.push(format!("{min}.5"));
         }
         if spec.key == "shutter" {
             bad.extend(["1/0".into(), "0/0".into(), "-1/1000".into(), "1/1000/2".into()]);
@@ -579,9 +590,15 @@ fn bad_values_name_the_key_and_the_accepted_range() {
 fn missing_required_keys_are_named_and_defaults_used() {
     let (scenario, errors) = Scenario::from_query("");
     let named: Vec<&str> = errors.iter().map(|e| e.key.as_str()).collect();
-    assert_eq!(named, REQUIRED_KEYS);
+    let required: Vec<&str> = INPUTS.iter().filter(|i| i.required).map(|i| i.key).collect();
+    assert_eq!(named, required);
+    assert_eq!(
+        required,
+        ["sw", "sh", "cols", "rows", "focal", "fnum", "h"],
+        "the contract's required keys"
+    );
     for error in &errors {
-        let spec = number_spec(&error.key).unwrap_or_else(|| panic!("{}", error.key));
+        let spec = spec(&error.key);
         assert!(error.message.contains(&spec.range_text()), "{}", error.message);
     }
     assert!(scenario.focal_mm > 0.0 && scenario.height_m > 0.0);

@@ -504,7 +504,7 @@ fn extreme_inputs_stay_finite() {
 }
 
 proptest! {
-    // Inputs across the contract's accepted ranges (scenario.rs NUMBER_SPECS), including the
+    // Inputs across the contract's accepted ranges (the table of inputs, contract/inputs.rs), including the
     // corners the brief names: 95 % overlap, a 1 m area, 100 km at 0.1 m with a long lens.
     #[test]
     fn never_nan_never_endless(

@@ -151,7 +151,7 @@ pub fn app() -> Html {
                 if !report.ignored.is_empty() {
                     <p class="note">{ format!("Kept but not used (unknown keys in the link): {}", report.ignored.join(", ")) }</p>
                 }
-                { for report.errors.iter().filter(|e| !["name"].contains(&e.key.as_str()) && crate::core::contract::scenario::number_spec(&e.key).is_none()).map(|e| html! {
+                { for report.errors.iter().filter(|e| !["name"].contains(&e.key.as_str()) && !crate::core::contract::inputs::input(&e.key).is_some_and(|i| i.is_number())).map(|e| html! {
                     <p class="error" role="alert" data-error-key={e.key.clone()}>{ e.message.clone() }</p>
                 }) }
             </form>

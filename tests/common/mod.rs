@@ -53,7 +53,7 @@ pub fn any_profile() -> impl Strategy<Value = Profile> {
     ]
 }
 
-/// Any engine setup within the scenario's valid ranges (`scenario::NUMBER_SPECS`, in SI): the
+/// Any engine setup within the scenario's valid ranges (`contract::inputs::INPUTS`, in SI): the
 /// target placed by ground distance (0 or 1 m to 100 km) or by tilt (0–85°).
 pub fn any_setup() -> impl Strategy<Value = Setup> {
     let optics = (

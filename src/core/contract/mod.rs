@@ -1,4 +1,6 @@
-//! The contract: the scenario keys, validation, and the report (`shared/reference/url-and-report.md`).
+//! The contract: the table of inputs, the scenario and its validation, and the report
+//! (`shared/reference/url-and-report.md`).
 
+pub mod inputs;
 pub mod report;
 pub mod scenario;

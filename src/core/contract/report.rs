@@ -182,23 +182,3 @@ pub fn report_json(query: &str) -> String {
     serde_json::to_string(&report_for_query(query))
         .unwrap_or_else(|e| format!("{{\"errors\":[{{\"key\":\"\",\"message\":\"{e}\"}}]}}"))
 }
-
-/// The scenario keys a report field depends on, so the page can say which results an invalid
-/// input affects.
-pub fn inputs_of(field: &str) -> &'static [&'static str] {
-    const GEOMETRY: [&str; 3] = ["h", "gd", "tilt"];
-    match field {
-        "pitch_m" => &["sw", "cols"],
-        "aperture_m" => &["focal", "fnum"],
-        "slant_range_m" | "look_angle_deg" => &GEOMETRY,
-        "gsd_m" | "gsd_ground_m" => &["sw", "cols", "focal", "h", "gd", "tilt"],
-        "diffraction_m" => &["focal", "fnum", "wl", "h", "gd", "tilt"],
-        "r0_m" | "turbulence_m" => &["wl", "air", "cn2", "cexp", "h", "gd", "tilt"],
-        "motion_m" => &["speed", "shutter"],
-        "q" => &["wl", "fnum", "sw", "cols"],
-        _ => &[
-            "sw", "sh", "cols", "rows", "focal", "fnum", "wl", "h", "gd", "tilt", "air", "cn2", "cexp", "speed",
-            "shutter",
-        ],
-    }
-}

@@ -1,11 +1,12 @@
 //! Geometry of the chart of the four limits against height (or ground distance), computed in plain
 //! Rust so it is tested natively; the UI only turns it into SVG elements.
 
-use crate::core::contract::scenario::Units;
 use crate::core::physics::engine::{evaluate, Limit};
 use crate::core::planning::cautions::COMMON_HEIGHT_CAP_M;
 use crate::core::planning::solve::{Axis, Sweep};
-use crate::core::words::format::{significant, METRES_PER_FOOT, METRES_PER_INCH};
+use crate::core::words::format::significant;
+use crate::core::words::units::Units;
+use crate::core::words::units::{METRES_PER_FOOT, METRES_PER_INCH};
 
 /// Size of the chart's view box and the margins around the plot area, in SVG user units.
 pub const WIDTH: f64 = 640.0;

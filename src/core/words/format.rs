@@ -1,14 +1,23 @@
-//! Numbers for people: lengths, speeds and times in sensible units, metric or imperial.
-//! The engine and the URL stay SI; only this module knows feet and miles.
+//! Numbers as text: for people (lengths, speeds and times in sensible units, metric or
+//! imperial) and for the link (the shortest text that reads back exactly).
 
-use crate::core::contract::scenario::Units;
+use crate::core::words::units::{Units, METRES_PER_FOOT, METRES_PER_INCH, METRES_PER_MILE, SQUARE_METRES_PER_ACRE};
 
-/// Metres in one international foot (exact by definition, 1959).
-pub const METRES_PER_FOOT: f64 = 0.3048;
-/// Metres in one inch.
-pub const METRES_PER_INCH: f64 = 0.0254;
-/// Metres in one statute mile.
-pub const METRES_PER_MILE: f64 = 1609.344;
+/// Formats a number as the URL writes it: whole numbers without a decimal point, very small or
+/// very large ones in exponent form, the rest in the shortest decimal that reads back exactly.
+pub fn format_number(x: f64) -> String {
+    if !x.is_finite() {
+        return "0".to_string();
+    }
+    let a = x.abs();
+    if x.fract() == 0.0 && a < 1e15 {
+        format!("{}", x as i64)
+    } else if a != 0.0 && !(1e-4..1e15).contains(&a) {
+        format!("{x:e}")
+    } else {
+        format!("{x}")
+    }
+}
 
 /// A number with three significant figures, without a trailing ".0".
 pub fn significant(x: f64) -> String {
@@ -92,7 +101,7 @@ pub fn area(square_metres: f64, units: Units) -> String {
         Units::Metric if square_metres < 1e6 => format!("{} ha", significant(square_metres / 1e4)),
         Units::Metric => format!("{} km²", significant(square_metres / 1e6)),
         Units::Imperial => {
-            let acres = square_metres / 4_046.856_422_4;
+            let acres = square_metres / SQUARE_METRES_PER_ACRE;
             if acres < 1.0 {
                 format!(
                     "{} ft²",
@@ -113,85 +122,4 @@ pub fn times(ratio: f64) -> String {
 /// A chance as a whole percentage.
 pub fn percent(probability: f64) -> String {
     format!("{:.0} %", (probability * 100.0).clamp(0.0, 100.0))
-}
-
-/// The unit a person types a field in when it differs from the contract's (imperial display):
-/// `per_si` of it make one of the contract's unit (m or m/s).
-#[derive(Clone, Copy, Debug, PartialEq)]
-pub struct EntryUnit {
-    pub unit: &'static str,
-    pub per_si: f64,
-}
-
-/// Feet per metre and inches per metre (international foot and inch, exact by definition).
-const FEET: EntryUnit = EntryUnit {
-    unit: "ft",
-    per_si: 1.0 / METRES_PER_FOOT,
-};
-const INCHES: EntryUnit = EntryUnit {
-    unit: "in",
-    per_si: 1.0 / METRES_PER_INCH,
-};
-const MPH: EntryUnit = EntryUnit {
-    unit: "mph",
-    per_si: 3600.0 / METRES_PER_MILE,
-};
-
-/// The unit a field is typed in: the contract's own in metric, feet, inches or mph in imperial.
-pub fn entry_unit(key: &str, units: Units) -> Option<EntryUnit> {
-    match (units, key) {
-        (Units::Metric, _) => None,
-        (Units::Imperial, "h" | "gd" | "aw" | "al" | "tdim") => Some(FEET),
-        (Units::Imperial, "need") => Some(INCHES),
-        (Units::Imperial, "speed") => Some(MPH),
-        _ => None,
-    }
-}
-
-/// `x` rounded to `n` significant figures (1 to 17).
-fn figures(x: f64, n: usize) -> f64 {
-    let decimals = n.clamp(1, 17) - 1;
-    format!("{x:.decimals$e}").parse().unwrap_or(x)
-}
-
-/// The text a field shows for the contract's text `si_text`: converted to six significant figures
-/// when it reads as a number, as it is otherwise (an invalid entry stays visible as typed).
-pub fn to_entry_text(si_text: &str, unit: EntryUnit) -> String {
-    match si_text.trim().parse::<f64>() {
-        Ok(v) if v.is_finite() => crate::core::contract::scenario::format_number(figures(v * unit.per_si, 6)),
-        _ => si_text.to_string(),
-    }
-}
-
-/// The contract's text for what a person typed in `unit`: converted (to ten significant figures,
-/// so that no conversion noise such as 79.85760000000001 reaches the link) when it reads as a
-/// number, as typed otherwise, so that validation names the problem.
-pub fn from_entry_text(text: &str, unit: EntryUnit) -> String {
-    match text.trim().parse::<f64>() {
-        Ok(v) if v.is_finite() => crate::core::contract::scenario::format_number(figures(v / unit.per_si, 10)),
-        _ => text.to_string(),
-    }
-}
-
-/// Whether the text a field shows stands for the contract's text `si_text` (to the six figures a
-/// field shows), so that a field is not overwritten while its text still means the same value.
-pub fn entry_matches(shown: &str, si_text: &str, unit: EntryUnit) -> bool {
-    let typed = from_entry_text(shown, unit);
-    if typed == si_text {
-        return true;
-    }
-    match (typed.trim().parse::<f64>(), si_text.trim().parse::<f64>()) {
-        (Ok(a), Ok(b)) => (a - b).abs() <= 1e-5 * b.abs(),
-        _ => false,
-    }
-}
-
-/// The accepted range of a key in the unit it is typed in, e.g. "from 0.328 to 65600 ft".
-pub fn entry_range(spec: &crate::core::contract::scenario::NumberSpec, unit: EntryUnit) -> String {
-    format!(
-        "from {} to {} {}",
-        significant(spec.min * unit.per_si),
-        significant(spec.max * unit.per_si),
-        unit.unit
-    )
 }

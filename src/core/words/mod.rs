@@ -2,3 +2,4 @@
 
 pub mod chart;
 pub mod format;
+pub mod units;

@@ -1,7 +1,7 @@
 //! A labelled text input that keeps exactly what the person types and shows the field's error.
 
-use crate::core::contract::scenario::number_spec;
-use crate::core::words::format::{entry_matches, entry_range, from_entry_text, to_entry_text, EntryUnit};
+use crate::core::contract::inputs::input;
+use crate::core::words::units::{entry_matches, entry_range, from_entry_text, to_entry_text, EntryUnit};
 use web_sys::{HtmlInputElement, HtmlSelectElement};
 use yew::prelude::*;
 
@@ -29,7 +29,7 @@ pub struct FieldProps {
 #[function_component(NumberField)]
 pub fn number_field(props: &FieldProps) -> Html {
     let key = props.key_name.to_string();
-    let spec = number_spec(&key);
+    let spec = input(&key);
     let label = spec.map(|s| s.label).unwrap_or("Value");
     let entry = props.entry;
     let unit = entry.map(|e| e.unit).or(spec.map(|s| s.unit)).unwrap_or("");
@@ -78,8 +78,8 @@ pub fn number_field(props: &FieldProps) -> Html {
         })
     };
     let invalid = props.error.is_some();
-    let range_in_entry_unit = match (entry, spec, invalid) {
-        (Some(e), Some(spec), true) => Some(format!("In {}: {}.", e.unit, entry_range(spec, e))),
+    let range_in_entry_unit = match (entry, spec.and_then(|s| s.range()), invalid) {
+        (Some(e), Some((min, max)), true) => Some(format!("In {}: {}.", e.unit, entry_range(min, max, e))),
         _ => None,
     };
     html! {

@@ -2,9 +2,11 @@
 //! what is needed, and the survey area.
 
 use super::field::{Choice, NumberField};
-use crate::core::contract::scenario::{format_number, Units};
-use crate::core::presets::demo::{BANDS, SENSOR_FORMATS};
+use crate::core::contract::inputs::entry_unit;
+use crate::core::presets::cameras::{BANDS, SENSOR_FORMATS};
 use crate::core::words::format;
+use crate::core::words::format::format_number;
+use crate::core::words::units::Units;
 use crate::ui::browser;
 use crate::ui::state::{Action, State};
 use std::rc::Rc;
@@ -22,7 +24,7 @@ fn field(props: &InputsProps, key: &'static str, hint: Option<String>) -> Html {
     let on_input = props
         .dispatch
         .reform(|(k, v): (String, String)| Action::Set(vec![(k, v)]));
-    let entry = format::entry_unit(key, props.state.plan.scenario.units);
+    let entry = entry_unit(key, props.state.plan.scenario.units);
     html! {
         <NumberField key_name={key} value={props.state.text(key)}
             error={props.state.error(key).map(AttrValue::from)}

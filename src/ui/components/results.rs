@@ -1,7 +1,6 @@
 //! The four limits side by side, the governing one in words, and what to change.
 
-use crate::core::contract::report::inputs_of;
-use crate::core::contract::scenario::number_spec;
+use crate::core::contract::inputs::{input, inputs_of};
 use crate::core::physics::engine::Limit;
 use crate::core::words::format;
 use crate::ui::state::State;
@@ -27,9 +26,9 @@ pub fn field_of(limit: Limit) -> &'static str {
 /// Labels of the invalid inputs that a report field depends on.
 pub fn invalid_inputs(state: &State, field: &str) -> Vec<&'static str> {
     inputs_of(field)
-        .iter()
+        .into_iter()
         .filter(|k| state.error(k).is_some())
-        .map(|k| number_spec(k).map(|s| s.label).unwrap_or(k))
+        .map(|k| input(k).map(|s| s.label).unwrap_or(k))
         .collect()
 }
 

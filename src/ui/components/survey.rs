@@ -33,7 +33,7 @@ fn maybe(key: &'static str, v: Option<f64>, text: impl Fn(f64) -> String) -> Htm
 }
 
 /// The layout drawn to scale: area, flight lines with direction and order, first footprints.
-pub fn diagram(layout: &Layout, units: crate::core::contract::scenario::Units, id: &str) -> Html {
+pub fn diagram(layout: &Layout, units: crate::core::words::units::Units, id: &str) -> Html {
     let arrow_id = format!("{id}-arrow");
     let b = layout.bounds;
     let pad = 0.04 * b.width.max(b.height).max(1.0);

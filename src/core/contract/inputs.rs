@@ -1,0 +1,597 @@
+//! The table of inputs: every key of the scenario contract (`shared/reference/url-and-report.md`)
+//! declared once, with its label, its unit in the link and for entry, its accepted range or words,
+//! its default, whether it is required, what it conflicts with, the report fields it feeds, and
+//! how it reads into and writes from a [`Scenario`].
+//!
+//! Parsing, writing, the field errors, the page's labels and [`inputs_of`] are loops over
+//! [`INPUTS`]; adding an input is one entry here plus its use.
+
+use crate::core::contract::scenario::{AirModel, Offset, Scenario};
+use crate::core::words::format::format_number;
+use crate::core::words::units::{EntryUnit, Units, FEET, INCHES, MPH};
+
+/// How a number is read from and written to the scenario.
+#[derive(Clone, Copy)]
+pub struct NumberSlot {
+    /// The value the scenario holds, `None` when an optional key is left out.
+    pub get: fn(&Scenario) -> Option<f64>,
+    /// Stores a checked value.
+    pub set: fn(&mut Scenario, f64),
+}
+
+/// What kind of value a key takes, with what is accepted and where it goes.
+#[derive(Clone, Copy)]
+pub enum Kind {
+    /// The contract's version number.
+    Version,
+    /// Free text, cut at `max_chars`.
+    Text {
+        max_chars: usize,
+        get: fn(&Scenario) -> &str,
+        set: fn(&mut Scenario, String),
+    },
+    /// A number from `min` to `max` in the link's unit; `default` is used when the key is left out
+    /// or rejected (`None`: the scenario goes without it).
+    Number {
+        min: f64,
+        max: f64,
+        default: Option<f64>,
+        /// Whole numbers only (pixel counts).
+        whole: bool,
+        /// `1/1000` is read as a fraction (exposure times).
+        fraction: bool,
+        slot: NumberSlot,
+    },
+    /// One of a list of words; `words[default]` when left out or not known.
+    Choice {
+        words: &'static [&'static str],
+        default: usize,
+        get: fn(&Scenario) -> usize,
+        set: fn(&mut Scenario, usize),
+    },
+}
+
+/// Another key that may not be given with this one, and what happens when both are.
+#[derive(Clone, Copy, Debug)]
+pub struct Conflict {
+    /// The key that wins when both are given.
+    pub with: &'static str,
+    /// The error shown on this key.
+    pub message: &'static str,
+}
+
+/// Which figures of the report an input changes, so that the page can say which results an
+/// invalid input affects.
+#[derive(Clone, Copy, Debug)]
+pub enum Feeds {
+    /// None of the resolution figures (survey and display settings).
+    Nothing,
+    /// The named fields, and every resolution figure that no input names.
+    Engine(&'static [&'static str]),
+}
+
+/// One key of the contract.
+#[derive(Clone, Copy)]
+pub struct Input {
+    pub key: &'static str,
+    /// The field's name for people, used in labels and error messages.
+    pub label: &'static str,
+    /// The unit in the link, and for entry unless `imperial` says otherwise ("" for none).
+    pub unit: &'static str,
+    pub kind: Kind,
+    /// A required key that is missing is named in an error (and its default used).
+    pub required: bool,
+    /// The unit it is typed in with imperial display, when not the link's.
+    pub imperial: Option<EntryUnit>,
+    pub conflict: Option<Conflict>,
+    pub feeds: Feeds,
+    /// In the plural, the verb in messages is "are" ("Display units … are not known").
+    pub plural: bool,
+}
+
+/// A real number key, optional unless `.required()`; the builders below add the rest.
+const fn number(
+    key: &'static str,
+    label: &'static str,
+    unit: &'static str,
+    range: (f64, f64),
+    slot: NumberSlot,
+) -> Input {
+    Input {
+        key,
+        label,
+        unit,
+        kind: Kind::Number {
+            min: range.0,
+            max: range.1,
+            default: None,
+            whole: false,
+            fraction: false,
+            slot,
+        },
+        required: false,
+        imperial: None,
+        conflict: None,
+        feeds: Feeds::Nothing,
+        plural: false,
+    }
+}
+
+impl Input {
+    /// The same number key with a default value.
+    const fn or(mut self, value: f64) -> Input {
+        if let Kind::Number { ref mut default, .. } = self.kind {
+            *default = Some(value);
+        }
+        self
+    }
+
+    /// The same key, required.
+    const fn required(mut self) -> Input {
+        self.required = true;
+        self
+    }
+
+    /// The same number key, whole numbers only.
+    const fn whole(mut self) -> Input {
+        if let Kind::Number { ref mut whole, .. } = self.kind {
+            *whole = true;
+        }
+        self
+    }
+
+    /// The same number key, also read as a fraction.
+    const fn fraction(mut self) -> Input {
+        if let Kind::Number { ref mut fraction, .. } = self.kind {
+            *fraction = true;
+        }
+        self
+    }
+
+    /// The same key, typed in `unit` with imperial display.
+    const fn imperial(mut self, unit: EntryUnit) -> Input {
+        self.imperial = Some(unit);
+        self
+    }
+
+    /// The same key, feeding the resolution engine (and the named report fields in particular).
+    const fn feeds(mut self, fields: &'static [&'static str]) -> Input {
+        self.feeds = Feeds::Engine(fields);
+        self
+    }
+
+    /// The same key, refused when `with` is given too.
+    const fn conflicts(mut self, with: &'static str, message: &'static str) -> Input {
+        self.conflict = Some(Conflict { with, message });
+        self
+    }
+}
+
+/// A slot for a plain `f64` field.
+macro_rules! plain {
+    ($field:ident) => {
+        NumberSlot {
+            get: |s| Some(s.$field),
+            set: |s, v| s.$field = v,
+        }
+    };
+}
+
+/// A slot for an `Option<f64>` field (an optional key).
+macro_rules! optional {
+    ($field:ident) => {
+        NumberSlot {
+            get: |s| s.$field,
+            set: |s, v| s.$field = Some(v),
+        }
+    };
+}
+
+/// A slot for a `u32` field (a pixel count, checked whole and in range before it is stored).
+macro_rules! count {
+    ($field:ident) => {
+        NumberSlot {
+            get: |s| Some(f64::from(s.$field)),
+            set: |s, v| s.$field = v as u32,
+        }
+    };
+}
+
+const SENSOR: (f64, f64) = (0.1, 200.0);
+const PIXELS: (f64, f64) = (16.0, 100_000.0);
+const OVERLAP: (f64, f64) = (0.0, 95.0);
+const INTERVAL: (f64, f64) = (0.0, 600.0);
+/// Report fields that follow the viewing geometry.
+const GEOMETRY: &[&str] = &[
+    "slant_range_m",
+    "look_angle_deg",
+    "gsd_m",
+    "gsd_ground_m",
+    "diffraction_m",
+    "r0_m",
+    "turbulence_m",
+];
+const PIXEL_PITCH: &[&str] = &["pitch_m", "gsd_m", "gsd_ground_m", "q"];
+const TURBULENCE: &[&str] = &["r0_m", "turbulence_m"];
+
+/// Every key of the contract, in the order a query is written and errors are listed.
+pub const INPUTS: &[Input] = &[
+    Input {
+        key: "v",
+        label: "Contract version",
+        unit: "",
+        kind: Kind::Version,
+        required: false,
+        imperial: None,
+        conflict: None,
+        feeds: Feeds::Nothing,
+        plural: false,
+    },
+    Input {
+        key: "name",
+        label: "Scenario name",
+        unit: "",
+        kind: Kind::Text {
+            max_chars: NAME_MAX_CHARS,
+            get: |s| &s.name,
+            set: |s, v| s.name = v,
+        },
+        ..INPUTS_BASE
+    },
+    number("sw", "Sensor width", "mm", SENSOR, plain!(sensor_width_mm))
+        .or(13.2)
+        .required()
+        .feeds(PIXEL_PITCH),
+    number("sh", "Sensor height", "mm", SENSOR, plain!(sensor_height_mm))
+        .or(8.8)
+        .required()
+        .feeds(&[]),
+    number("cols", "Image width", "pixels", PIXELS, count!(cols))
+        .or(5472.0)
+        .whole()
+        .required()
+        .feeds(PIXEL_PITCH),
+    number("rows", "Image height", "pixels", PIXELS, count!(rows))
+        .or(3648.0)
+        .whole()
+        .required()
+        .feeds(&[]),
+    number("focal", "Focal length", "mm", (0.5, 5000.0), plain!(focal_mm))
+        .or(8.8)
+        .required()
+        .feeds(&["aperture_m", "gsd_m", "gsd_ground_m", "diffraction_m"]),
+    number("fnum", "f-number", "", (0.5, 64.0), plain!(f_number))
+        .or(4.0)
+        .required()
+        .feeds(&["aperture_m", "diffraction_m", "q"]),
+    number("wl", "Wavelength", "nm", (200.0, 20_000.0), plain!(wavelength_nm))
+        .or(550.0)
+        .feeds(&["diffraction_m", "r0_m", "turbulence_m", "q"]),
+    number("h", "Height above the target", "m", (0.1, 20_000.0), plain!(height_m))
+        .or(80.0)
+        .required()
+        .imperial(FEET)
+        .feeds(GEOMETRY),
+    number(
+        "gd",
+        "Ground distance to the target",
+        "m",
+        (0.0, 100_000.0),
+        NumberSlot {
+            get: |s| match s.offset {
+                Offset::GroundDistance(g) => Some(g),
+                Offset::Tilt(_) => None,
+            },
+            set: |s, v| s.offset = Offset::GroundDistance(v),
+        },
+    )
+    .or(0.0)
+    .imperial(FEET)
+    .feeds(GEOMETRY),
+    number(
+        "tilt",
+        "Tilt from straight down",
+        "degrees",
+        (0.0, 85.0),
+        NumberSlot {
+            get: |s| match s.offset {
+                Offset::Tilt(t) => Some(t),
+                Offset::GroundDistance(_) => None,
+            },
+            set: |s, v| s.offset = Offset::Tilt(v),
+        },
+    )
+    .conflicts(
+        "gd",
+        "Give either the ground distance (gd) or the tilt, not both; the ground distance is used.",
+    )
+    .feeds(GEOMETRY),
+    Input {
+        key: "air",
+        label: "Turbulence profile",
+        unit: "",
+        kind: Kind::Choice {
+            words: &AirModel::WORDS,
+            default: 0,
+            get: |s| s.air as usize,
+            set: |s, i| s.air = AirModel::ALL.get(i).copied().unwrap_or_default(),
+        },
+        ..INPUTS_BASE
+    }
+    .feeds(TURBULENCE),
+    number(
+        "cn2",
+        "Cn² at 1 m above the ground",
+        "m^-2/3",
+        (1e-18, 1e-11),
+        plain!(cn2_at_1m),
+    )
+    .or(1e-14)
+    .feeds(TURBULENCE),
+    number("cexp", "Cn² height exponent", "", (-3.0, 0.0), plain!(cn2_exponent))
+        .or(-4.0 / 3.0)
+        .feeds(TURBULENCE),
+    number("speed", "Ground speed", "m/s", (0.0, 150.0), plain!(speed_mps))
+        .or(0.0)
+        .imperial(MPH)
+        .feeds(&["motion_m"]),
+    number("shutter", "Exposure time", "s", (1e-6, 10.0), plain!(shutter_s))
+        .or(0.001)
+        .fraction()
+        .feeds(&["motion_m"]),
+    number(
+        "aw",
+        "Area width (across the lines)",
+        "m",
+        (1.0, 100_000.0),
+        optional!(area_width_m),
+    )
+    .imperial(FEET),
+    number(
+        "al",
+        "Area length (along the lines)",
+        "m",
+        (1.0, 100_000.0),
+        optional!(area_length_m),
+    )
+    .imperial(FEET),
+    number("fo", "Front overlap", "%", OVERLAP, plain!(front_overlap_pct)).or(75.0),
+    number("so", "Side overlap", "%", OVERLAP, plain!(side_overlap_pct)).or(65.0),
+    number(
+        "need",
+        "Required resolution on the ground",
+        "m",
+        (0.0001, 1000.0),
+        optional!(need_m),
+    )
+    .imperial(INCHES),
+    number(
+        "tdim",
+        "Target critical dimension",
+        "m",
+        (0.01, 10_000.0),
+        optional!(target_m),
+    )
+    .imperial(FEET),
+    number(
+        "trig",
+        "Shortest interval between photos",
+        "s",
+        INTERVAL,
+        plain!(trigger_s),
+    )
+    .or(2.0),
+    number(
+        "endur",
+        "Usable flight time per battery",
+        "min",
+        (1.0, 600.0),
+        plain!(endurance_min),
+    )
+    .or(25.0),
+    number("turn", "Time per turn between lines", "s", INTERVAL, plain!(turn_s)).or(10.0),
+    number("mb", "Size of one photo", "MB", (0.0, 2000.0), plain!(photo_mb)).or(10.0),
+    number(
+        "blur",
+        "Motion-blur budget",
+        "pixels",
+        (0.05, 10.0),
+        plain!(blur_budget_px),
+    )
+    .or(0.5),
+    number(
+        "lat",
+        "Survey origin latitude",
+        "degrees",
+        (-89.0, 89.0),
+        optional!(latitude_deg),
+    ),
+    number(
+        "lon",
+        "Survey origin longitude",
+        "degrees",
+        (-180.0, 180.0),
+        optional!(longitude_deg),
+    ),
+    number(
+        "hdg",
+        "Flight-line heading",
+        "degrees from north",
+        (0.0, 360.0),
+        plain!(heading_deg),
+    )
+    .or(0.0),
+    Input {
+        key: "units",
+        label: "Display units",
+        unit: "",
+        kind: Kind::Choice {
+            words: &UNIT_WORDS,
+            default: 0,
+            get: |s| s.units as usize,
+            set: |s, i| s.units = Units::ALL.get(i).copied().unwrap_or_default(),
+        },
+        plural: true,
+        ..INPUTS_BASE
+    },
+];
+
+/// Longest scenario name kept, in characters.
+pub const NAME_MAX_CHARS: usize = 120;
+
+/// The words of the `units` key, in [`Units::ALL`] order.
+const UNIT_WORDS: [&str; 2] = [Units::Metric.key(), Units::Imperial.key()];
+
+/// What every entry shares unless it says otherwise (for the entries that are not numbers).
+const INPUTS_BASE: Input = Input {
+    key: "",
+    label: "",
+    unit: "",
+    kind: Kind::Version,
+    required: false,
+    imperial: None,
+    conflict: None,
+    feeds: Feeds::Nothing,
+    plural: false,
+};
+
+/// The entry of `key`, if the contract has one.
+pub fn input(key: &str) -> Option<&'static Input> {
+    INPUTS.iter().find(|i| i.key == key)
+}
+
+/// The unit `key` is typed in with `units` display, when it differs from the link's.
+pub fn entry_unit(key: &str, units: Units) -> Option<EntryUnit> {
+    match units {
+        Units::Metric => None,
+        Units::Imperial => input(key)?.imperial,
+    }
+}
+
+/// The scenario keys a report field depends on: the inputs that name it, or, for a resolution
+/// figure that no input names, every input that feeds the engine.
+pub fn inputs_of(field: &str) -> Vec<&'static str> {
+    let named = |i: &&Input| matches!(i.feeds, Feeds::Engine(fields) if fields.contains(&field));
+    let keys: Vec<&'static str> = INPUTS.iter().filter(named).map(|i| i.key).collect();
+    if !keys.is_empty() {
+        return keys;
+    }
+    INPUTS
+        .iter()
+        .filter(|i| matches!(i.feeds, Feeds::Engine(_)))
+        .map(|i| i.key)
+        .collect()
+}
+
+/// The first `max` characters of `text`, with an ellipsis when cut.
+pub(crate) fn clip(text: &str, max: usize) -> String {
+    if text.chars().count() <= max {
+        text.to_string()
+    } else {
+        let head: String = text.chars().take(max).collect();
+        format!("{head}…")
+    }
+}
+
+/// Reads a number or a fraction such as `1/1000`.
+fn parse_fraction(text: &str) -> Option<f64> {
+    match text.split_once('/') {
+        Some((num, den)) => {
+            let num: f64 = num.trim().parse().ok()?;
+            let den: f64 = den.trim().parse().ok()?;
+            (den != 0.0).then(|| num / den)
+        }
+        None => text.parse().ok(),
+    }
+}
+
+impl Input {
+    /// The accepted values in words, e.g. "a number from 0.5 to 5000 mm" or "metric or imperial".
+    pub fn range_text(&self) -> String {
+        match self.kind {
+            Kind::Number { min, max, whole, .. } => {
+                let unit = if self.unit.is_empty() {
+                    String::new()
+                } else {
+                    format!(" {}", self.unit)
+                };
+                let kind = if whole { "a whole number" } else { "a number" };
+                format!("{kind} from {} to {}{unit}", format_number(min), format_number(max))
+            }
+            Kind::Choice { words, .. } => match words {
+                [a, b] => format!("{a} or {b}"),
+                _ => format!("one of {}", words.join(", ")),
+            },
+            Kind::Text { max_chars, .. } => format!("text of at most {max_chars} characters"),
+            Kind::Version => "1".to_string(),
+        }
+    }
+
+    /// Whether the key takes a number (and so has a field of its own on the page).
+    pub fn is_number(&self) -> bool {
+        matches!(self.kind, Kind::Number { .. })
+    }
+
+    /// Whether the key takes whole numbers only.
+    pub fn is_whole(&self) -> bool {
+        matches!(self.kind, Kind::Number { whole: true, .. })
+    }
+
+    /// The accepted range of a number key, `(min, max)` in the link's unit.
+    pub fn range(&self) -> Option<(f64, f64)> {
+        match self.kind {
+            Kind::Number { min, max, .. } => Some((min, max)),
+            _ => None,
+        }
+    }
+
+    /// Parses and checks one number; the error message names the field and the accepted range.
+    pub fn parse(&self, text: &str) -> Result<f64, String> {
+        let Kind::Number {
+            min,
+            max,
+            whole,
+            fraction,
+            ..
+        } = self.kind
+        else {
+            return Err(format!("{} is not a number field.", self.label));
+        };
+        let t = text.trim();
+        let value = if fraction {
+            parse_fraction(t)
+        } else {
+            t.parse::<f64>().ok()
+        };
+        let reason = match value {
+            None if t.is_empty() => "is empty".to_string(),
+            None => format!("'{}' is not a number", clip(t, 24)),
+            Some(v) if !v.is_finite() => format!("'{}' is not a finite number", clip(t, 24)),
+            Some(v) if v < min || v > max => format!("{} is out of range", format_number(v)),
+            Some(v) if whole && v.fract() != 0.0 => format!("{} is not a whole number", format_number(v)),
+            Some(v) => return Ok(v),
+        };
+        Err(format!("{} {reason}: give {}.", self.label, self.range_text()))
+    }
+
+    /// The value's text in the link, or `None` when the scenario leaves the key out.
+    pub fn write(&self, scenario: &Scenario) -> Option<String> {
+        match self.kind {
+            Kind::Version => Some(crate::core::contract::scenario::CONTRACT_VERSION.to_string()),
+            Kind::Text { get, .. } => Some(get(scenario).to_string()).filter(|t| !t.is_empty()),
+            Kind::Number { slot, .. } => (slot.get)(scenario).map(format_number),
+            Kind::Choice { words, get, .. } => words.get(get(scenario)).map(|w| w.to_string()),
+        }
+    }
+
+    /// Stores the default of this key (nothing for an optional number or text).
+    pub(crate) fn apply_default(&self, scenario: &mut Scenario) {
+        match self.kind {
+            Kind::Number {
+                default: Some(v), slot, ..
+            } => (slot.set)(scenario, v),
+            Kind::Choice { default, set, .. } => set(scenario, default),
+            _ => {}
+        }
+    }
+}
