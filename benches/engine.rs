@@ -2,7 +2,7 @@
 //! Goals (issue 3): under 20 µs and under 2 ms natively. Run with `cargo bench --bench engine`.
 
 use criterion::{criterion_group, criterion_main, Criterion};
-use sharpfield::core::contract::report::Plan;
+use sharpfield::core::contract::plan::Plan;
 use sharpfield::core::physics::engine::evaluate;
 use sharpfield::core::planning::solve::{Axis, Sweep};
 use sharpfield::core::presets::demo;

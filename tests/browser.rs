@@ -9,7 +9,8 @@
 //! (scripts/test does; webdriver.json holds Chromium's flags).
 
 use serde_json::Value;
-use sharpfield::core::contract::report::{report_for_query, Plan, Report};
+use sharpfield::core::contract::plan::Plan;
+use sharpfield::core::contract::report::{report_for_query, Report};
 use sharpfield::core::contract::scenario::RawScenario;
 use sharpfield::core::presets::demo;
 use sharpfield::ui::app::App;

@@ -4,7 +4,7 @@
 use geographiclib_rs::{DirectGeodesic, Geodesic, InverseGeodesic};
 mod common;
 
-use common::{close, plan};
+use common::{close, inputs, plan};
 use proptest::prelude::*;
 use serde_json::Value;
 use sharpfield::core::contract::scenario::Scenario;
@@ -14,7 +14,7 @@ use sharpfield::core::formats::geojson::{
 use sharpfield::core::presets::demo::pasture_survey;
 
 fn export(scenario: &Scenario) -> Value {
-    let text = survey_geojson(scenario, &plan(scenario)).expect("origin and area are given");
+    let text = survey_geojson(&inputs(scenario), &plan(scenario), &scenario.name).expect("origin and area are given");
     serde_json::from_str(&text).expect("the export is JSON")
 }
 
@@ -244,8 +244,8 @@ fn missing_origin_or_area_gives_none_with_a_reason() {
     ];
     for (s, problem) in cases {
         let p = plan(&s);
-        assert_eq!(survey_geojson(&s, &p), None);
-        assert_eq!(survey_geojson_checked(&s, &p), Err(problem));
+        assert_eq!(survey_geojson(&inputs(&s), &p, &s.name), None);
+        assert_eq!(survey_geojson_checked(&inputs(&s), &p, &s.name), Err(problem));
         assert!(problem.message().contains("give"));
     }
 }
@@ -260,7 +260,7 @@ fn areas_the_export_cannot_draw_are_refused() {
         ..pasture_survey()
     };
     assert_eq!(
-        survey_geojson_checked(&s, &plan(&s)),
+        survey_geojson_checked(&inputs(&s), &plan(&s), &s.name),
         Err(ExportProblem::CrossesAntimeridian)
     );
     // Westward from just east of it.
@@ -270,7 +270,7 @@ fn areas_the_export_cannot_draw_are_refused() {
         ..s
     };
     assert_eq!(
-        survey_geojson_checked(&s, &plan(&s)),
+        survey_geojson_checked(&inputs(&s), &plan(&s), &s.name),
         Err(ExportProblem::CrossesAntimeridian)
     );
     // A 100 km square at 89° N reaches the pole, 111 km away.
@@ -280,13 +280,16 @@ fn areas_the_export_cannot_draw_are_refused() {
         area_length_m: Some(100_000.0),
         ..pasture_survey()
     };
-    assert_eq!(survey_geojson_checked(&s, &plan(&s)), Err(ExportProblem::NearPole));
+    assert_eq!(
+        survey_geojson_checked(&inputs(&s), &plan(&s), &s.name),
+        Err(ExportProblem::NearPole)
+    );
     // The same field at 89° N is fine.
     let s = Scenario {
         latitude_deg: Some(89.0),
         ..pasture_survey()
     };
-    assert!(survey_geojson(&s, &plan(&s)).is_some());
+    assert!(survey_geojson(&inputs(&s), &plan(&s), &s.name).is_some());
 }
 
 #[test]
@@ -332,7 +335,7 @@ proptest! {
             ..field_at(lat, lon, heading, width, length)
         };
         let p = plan(&s);
-        match survey_geojson_checked(&s, &p) {
+        match survey_geojson_checked(&inputs(&s), &p, &s.name) {
             Ok(text) => {
                 let v: Value = serde_json::from_str(&text).unwrap();
                 let ring = area_ring(&v);

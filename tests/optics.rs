@@ -280,6 +280,7 @@ fn sampling_ratio_q() {
             1e-12,
         );
     }
-    assert!(optics::sampling_regime(1.9).starts_with("detector-limited"));
-    assert!(optics::sampling_regime(2.0).starts_with("optics-limited"));
+    // GIQE 5.0: Q < 2 is detector-limited (aliasing possible), Q ≥ 2 optics-limited.
+    assert_eq!(optics::sampling_regime(1.9), optics::SamplingRegime::DetectorLimited);
+    assert_eq!(optics::sampling_regime(2.0), optics::SamplingRegime::OpticsLimited);
 }

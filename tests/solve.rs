@@ -9,8 +9,10 @@ use proptest::test_runner::FileFailurePersistence;
 use sharpfield::core::physics::engine::{evaluate, Limit, Setup};
 use sharpfield::core::physics::geometry::Geometry;
 use sharpfield::core::physics::turbulence::Profile;
-use sharpfield::core::planning::solve::{describe_reach, focal_needed, Axis, Crossing, FocalNeed, Reach, Sweep};
+use sharpfield::core::planning::solve::{focal_needed, Axis, Crossing, FocalNeed, Reach, Sweep};
 use sharpfield::core::presets::demo;
+use sharpfield::core::words::notes;
+use sharpfield::core::words::units::Units;
 
 /// A small step, relative, well above the solves' bisection tolerance (1e−9).
 const STEP: f64 = 1e-6;
@@ -278,9 +280,9 @@ fn nowhere_names_motion_when_the_smear_alone_exceeds_the_need() {
             }
             other => panic!("{axis:?}: expected Nowhere, got {other:?}"),
         }
-        let text = describe_reach(&reach, axis, "5 cm", |m| format!("{m} m"));
+        let text = notes::reach(&reach, axis, "5 cm", Units::Metric);
         assert!(text.contains("motion"), "{text}");
-        assert!(text.contains(Limit::Motion.advice()), "{text}");
+        assert!(text.contains(notes::limit_advice(Limit::Motion)), "{text}");
     }
 }
 

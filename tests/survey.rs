@@ -4,7 +4,7 @@
 
 mod common;
 
-use common::{close, plan};
+use common::{close, inputs, plan, words};
 use proptest::prelude::*;
 use sharpfield::core::contract::report::report_json;
 use sharpfield::core::contract::scenario::{Offset, Scenario};
@@ -12,9 +12,12 @@ use sharpfield::core::planning::survey::{
     layout, overlap_guidance, SurveyPlan, MAX_DRAWN_LINES, MAX_LINES, MAX_PHOTOS,
 };
 use sharpfield::core::presets::demo::pasture_survey;
+use sharpfield::core::words::notes::overlap;
+use sharpfield::core::words::units::Units;
 
-fn has_note(plan: &SurveyPlan, words: &str) -> bool {
-    plan.survey_notes.iter().any(|n| n.contains(words))
+/// Whether the plan's notes, in metric words, say `text`.
+fn has_note(plan: &SurveyPlan, text: &str) -> bool {
+    words(plan, Units::Metric).survey_notes.iter().any(|n| n.contains(text))
 }
 
 // NPTEL course 105104100 (Photogrammetry), lecture "Flight planning", Example 1: "An area 45 km
@@ -130,7 +133,7 @@ fn demo_field_by_hand() {
     let gsd = 13.2e-3 / 5472.0 * 80.0 / 8.8e-3;
     close(p.max_speed_blur_mps.unwrap(), 0.5 * gsd / 0.001, 1e-9);
     assert!(p.speed_flags.is_empty(), "{:?}", p.speed_flags);
-    assert_eq!(p.overlap_guidance.code, "mapping");
+    assert_eq!(p.overlap.class.code(), "mapping");
 }
 
 #[test]
@@ -162,12 +165,13 @@ fn speed_flags_name_the_limit_and_the_change() {
         speed_mps: 20.0,
         ..pasture_survey()
     });
-    let codes: Vec<&str> = p.speed_flags.iter().map(|f| f.code).collect();
+    let codes: Vec<&str> = p.speed_flags.iter().map(|f| f.code()).collect();
     assert_eq!(codes, ["blur", "trigger"]);
-    let blur = &p.speed_flags[0];
+    let w = words(&p, Units::Metric);
+    let blur = &w.speed_flags[0];
     close(blur.limit_mps, p.max_speed_blur_mps.unwrap(), 0.0);
     assert!(blur.change.contains("Slow to") && blur.change.contains("shorten the exposure"));
-    let trigger = &p.speed_flags[1];
+    let trigger = &w.speed_flags[1];
     close(trigger.limit_mps, 10.0, 1e-12);
     assert!(trigger.change.contains("lower the front overlap"));
     assert!(trigger.change.contains("shorter interval"));
@@ -181,7 +185,7 @@ fn a_camera_without_a_minimum_interval_sets_no_trigger_limit() {
         ..pasture_survey()
     });
     assert_eq!(p.max_speed_trigger_mps, None);
-    assert!(p.speed_flags.iter().all(|f| f.code != "trigger"));
+    assert!(p.speed_flags.iter().all(|f| f.code() != "trigger"));
 }
 
 #[test]
@@ -255,8 +259,9 @@ fn overlap_guidance_follows_common_practice() {
     ];
     for ((front, side), code) in cases {
         let g = overlap_guidance(front, side);
-        assert_eq!(g.code, code, "{front}/{side}: {}", g.text);
-        assert!(g.text.starts_with("Overlap of"));
+        let text = overlap(&g);
+        assert_eq!(g.class.code(), code, "{front}/{side}: {text}");
+        assert!(text.starts_with("Overlap of"));
     }
 }
 
@@ -278,7 +283,7 @@ fn absurd_counts_are_withheld_with_a_note() {
     assert_eq!((p.lines, p.photos_per_line, p.photos), (None, None, None));
     assert!(has_note(&p, &format!("More than {MAX_LINES} flight lines")));
     assert!(has_note(&p, &format!("More than {MAX_PHOTOS} photos on each line")));
-    assert!(layout(&p, &s).is_none());
+    assert!(layout(&p, &inputs(&s)).is_none());
 
     // Lines and photos per line within their caps, the total above.
     let s = Scenario {
@@ -327,7 +332,7 @@ fn the_report_carries_the_survey_fields() {
 fn layout_of_the_demo_field() {
     let s = pasture_survey();
     let p = plan(&s);
-    let l = layout(&p, &s).expect("the demo has an area");
+    let l = layout(&p, &inputs(&s)).expect("the demo has an area");
     assert_eq!((l.lines_total, l.lines_omitted, l.lines.len()), (11, 0, 11));
     // Serpentine: line 1 along the heading from the first corner, line 2 back.
     assert!(l.lines[0].forward && !l.lines[1].forward);
@@ -366,7 +371,7 @@ fn layout_draws_at_most_sixty_lines() {
         ..pasture_survey()
     };
     let p = plan(&s);
-    let l = layout(&p, &s).unwrap();
+    let l = layout(&p, &inputs(&s)).unwrap();
     // ceil(10000/42) + 1 = 240 lines.
     assert_eq!(l.lines_total, 240);
     assert_eq!(l.lines.len() as u64, MAX_DRAWN_LINES);
@@ -389,7 +394,7 @@ fn small_areas_keep_the_plus_one_convention() {
     };
     let p = plan(&s);
     assert_eq!((p.lines, p.photos_per_line), (Some(1), Some(1)));
-    let l = layout(&p, &s).unwrap();
+    let l = layout(&p, &inputs(&s)).unwrap();
     assert_eq!(l.footprints.len(), 1);
 }
 
@@ -409,7 +414,7 @@ fn check_sane(s: &Scenario) {
         .into_iter()
         .flatten(),
     );
-    numbers.extend(p.speed_flags.iter().map(|f| f.limit_mps));
+    numbers.extend(p.speed_flags.iter().map(|f| f.limit_mps()));
     assert!(numbers.iter().all(|v| v.is_finite()), "{p:?}");
     assert!(p.lines.is_none_or(|n| (1..=MAX_LINES).contains(&n)));
     assert!(p.photos_per_line.is_none_or(|n| (1..=MAX_PHOTOS).contains(&n)));
@@ -418,7 +423,7 @@ fn check_sane(s: &Scenario) {
         assert_eq!(n * k, t);
     }
     assert!(serde_json::to_string(&p).is_ok());
-    if let Some(l) = layout(&p, s) {
+    if let Some(l) = layout(&p, &inputs(s)) {
         assert!(l.lines.len() as u64 <= MAX_DRAWN_LINES);
         assert_eq!(l.lines.len() as u64 + l.lines_omitted, l.lines_total);
         let b = l.bounds;

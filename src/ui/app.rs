@@ -5,6 +5,7 @@ use crate::core::formats::qr::qr_svg;
 use crate::core::presets::demo;
 use crate::core::words::chart;
 use crate::core::words::format;
+use crate::core::words::notes;
 use crate::ui::browser;
 use crate::ui::components::cautions::Cautions;
 use crate::ui::components::chart::LimitsChart;
@@ -131,7 +132,7 @@ pub fn app() -> Html {
         </header>
         <div class="summary" aria-live="polite">
             <span>{ if name.is_empty() { "Untitled scenario".to_string() } else { name.clone() } }</span>
-            <a href="#results">{ format!("{} governs: {}", report.governing.title(), format::length(report.limit_m, units)) }</a>
+            <a href="#results">{ format!("{} governs: {}", notes::limit_title(report.governing), format::length(report.limit_m, units)) }</a>
         </div>
         <main class="layout">
             <form class="inputs" onsubmit={Callback::from(|e: SubmitEvent| e.prevent_default())} aria-label="Scenario inputs">

@@ -1,6 +1,6 @@
 //! The browser shell: yew components and browser services over the pure core.
 //!
-//! Invariant: no physics or planning here. Components read a [`crate::core::contract::report::Plan`] and
+//! Invariant: no physics or planning here. Components read a [`crate::core::contract::plan::Plan`] and
 //! dispatch [`state::Action`]s; browser services (URL, storage, printing) never panic when the
 //! browser refuses them.
 

@@ -1,6 +1,6 @@
 //! The app's one state: the scenario's raw text and the plan computed from it.
 
-use crate::core::contract::report::Plan;
+use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::RawScenario;
 use std::rc::Rc;
 use yew::Reducible;

@@ -8,7 +8,9 @@ use sharpfield::core::contract::scenario::Scenario;
 use sharpfield::core::physics::engine::{evaluate, Setup};
 use sharpfield::core::physics::geometry::Geometry;
 use sharpfield::core::physics::turbulence::Profile;
-use sharpfield::core::planning::survey::{plan_survey, SurveyPlan};
+use sharpfield::core::planning::survey::{plan_survey, SurveyInputs, SurveyPlan};
+use sharpfield::core::words::notes::{survey_words, SurveyWords};
+use sharpfield::core::words::units::Units;
 
 /// Log-uniform in [lo, hi], ends included.
 pub fn log_range(lo: f64, hi: f64) -> impl Strategy<Value = f64> {
@@ -94,9 +96,19 @@ pub fn any_setup() -> impl Strategy<Value = Setup> {
     )
 }
 
-/// The survey plan of a scenario, with the engine's evaluation as the report computes it.
+/// The survey inputs of a scenario, with the GSD from the engine's evaluation as the plan takes it.
+pub fn inputs(scenario: &Scenario) -> SurveyInputs {
+    scenario.survey_inputs(evaluate(&scenario.setup()).gsd_m)
+}
+
+/// The survey plan of a scenario, as the plan computes it.
 pub fn plan(scenario: &Scenario) -> SurveyPlan {
-    plan_survey(scenario, &evaluate(&scenario.setup()))
+    plan_survey(&inputs(scenario))
+}
+
+/// What a survey plan says, in words, in `units`.
+pub fn words(plan: &SurveyPlan, units: Units) -> SurveyWords {
+    survey_words(plan, units)
 }
 
 /// Asserts that `actual` is within `tolerance` of `expected`.

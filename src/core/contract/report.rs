@@ -2,13 +2,15 @@
 //! (`shared/reference/url-and-report.md`). The `report` example prints it as JSON and the page
 //! shows the same values, each tagged with its field name.
 
+use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::{FieldError, Offset, RawScenario, Scenario, CONTRACT_VERSION};
-use crate::core::physics::engine::{evaluate, Evaluation, Limit, Setup};
+use crate::core::physics::engine::{Evaluation, Limit, Setup};
 use crate::core::physics::optics;
 use crate::core::physics::target::{person_identification_limit_m, task_chances, TaskChance};
-use crate::core::planning::cautions::{self, Caution, CautionInputs};
+use crate::core::planning::cautions::{self, CautionInputs};
 use crate::core::planning::solve::{focal_needed, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep};
-use crate::core::planning::survey::{plan_survey, SurveyPlan};
+use crate::core::planning::survey::SurveyPlan;
+use crate::core::words::notes::{self, CautionWords, SurveyWords};
 use serde::Serialize;
 
 /// Everything the planner computes for one scenario.
@@ -53,21 +55,14 @@ pub struct Report {
     pub target_cycles: Option<f64>,
     pub target_chances: Vec<TaskChance>,
     pub identifies_people: bool,
-    pub cautions: Vec<Caution>,
+    pub cautions: Vec<CautionWords>,
     #[serde(flatten)]
     pub survey: SurveyPlan,
+    /// The survey's flags, guidance and notes in words (flattened after its figures).
+    #[serde(flatten)]
+    pub survey_words: SurveyWords,
     pub errors: Vec<FieldError>,
     pub ignored: Vec<String>,
-}
-
-/// A scenario with everything computed from it, for the page: the report plus the pieces the chart needs.
-#[derive(Clone, Debug, PartialEq)]
-pub struct Plan {
-    pub scenario: Scenario,
-    pub setup: Setup,
-    pub evaluation: Evaluation,
-    pub sweep: Sweep,
-    pub report: Report,
 }
 
 /// The axis the backward solves use: a fixed camera looking across at a target some distance off
@@ -79,31 +74,26 @@ pub fn solve_axis(scenario: &Scenario) -> Axis {
     }
 }
 
-impl Plan {
-    /// Validates raw text and computes the whole plan; never panics.
-    pub fn from_raw(raw: &RawScenario) -> Plan {
-        let (scenario, errors) = Scenario::from_raw(raw);
-        Plan::build(scenario, errors)
-    }
-
-    /// Computes the whole plan for a validated scenario.
-    pub fn build(scenario: Scenario, errors: Vec<FieldError>) -> Plan {
-        let setup = scenario.setup();
-        let e = evaluate(&setup);
-        let axis = solve_axis(&scenario);
-        let sweep = Sweep::new(setup, axis);
-
+impl Report {
+    /// The report of a validated scenario from its engine setup, evaluation, sweep and survey plan.
+    pub fn new(
+        scenario: &Scenario,
+        setup: &Setup,
+        e: &Evaluation,
+        sweep: &Sweep,
+        survey: &SurveyPlan,
+        errors: Vec<FieldError>,
+    ) -> Report {
         let reach = scenario.need_m.map(|need| sweep.reach(need));
         let reach_m = match reach {
             Some(Reach::UpTo { position_m, .. }) => Some(position_m),
             _ => None,
         };
-        let focal = scenario.need_m.map(|need| focal_needed(&e, &setup, need));
+        let focal = scenario.need_m.map(|need| focal_needed(e, setup, need));
         let focal_needed_m = match focal {
             Some(FocalNeed::AtLeast { focal_m, .. }) => Some(focal_m),
             _ => None,
         };
-
         let (target_cycles, target_chances) = match scenario.target_m {
             Some(t) => {
                 let (n, chances) = task_chances(t, e.limit_m);
@@ -114,12 +104,12 @@ impl Plan {
         let identifies_people = e.limit_m <= person_identification_limit_m();
         let cautions = cautions::cautions(CautionInputs {
             height_m: scenario.height_m,
-            airborne: axis == Axis::Height,
+            airborne: sweep.axis == Axis::Height,
             identifies_people,
         });
-        let survey = plan_survey(&scenario, &e);
-
-        let report = Report {
+        // Words are in metric for now, whatever the display units (as before the words layer).
+        let words_units = crate::core::words::units::Units::Metric;
+        Report {
             v: CONTRACT_VERSION,
             name: scenario.name.clone(),
             pitch_m: e.pitch_m,
@@ -141,10 +131,10 @@ impl Plan {
             governing: e.governing,
             runner_up: e.runner_up,
             governing_margin: e.margin,
-            advice: e.governing.advice(),
+            advice: notes::limit_advice(e.governing),
             q: e.q,
-            sampling_regime: optics::sampling_regime(e.q),
-            solve_axis: axis,
+            sampling_regime: notes::sampling_regime(optics::sampling_regime(e.q)),
+            solve_axis: sweep.axis,
             need_m: scenario.need_m,
             reach,
             reach_m,
@@ -157,17 +147,11 @@ impl Plan {
             target_cycles,
             target_chances,
             identifies_people,
-            cautions,
-            survey,
+            cautions: notes::cautions(&cautions),
+            survey: survey.clone(),
+            survey_words: notes::survey_words(survey, words_units),
             errors,
             ignored: scenario.ignored_keys(),
-        };
-        Plan {
-            scenario,
-            setup,
-            evaluation: e,
-            sweep,
-            report,
         }
     }
 }

@@ -12,6 +12,7 @@ use crate::core::contract::inputs::{clip, Kind, INPUTS};
 use crate::core::physics::engine::Setup;
 use crate::core::physics::geometry::Geometry;
 use crate::core::physics::turbulence::Profile;
+use crate::core::planning::survey::SurveyInputs;
 use crate::core::words::format::format_number;
 use crate::core::words::units::Units;
 use serde::Serialize;
@@ -322,6 +323,36 @@ impl Scenario {
             profile: self.profile(),
             speed_mps: self.speed_mps,
             exposure_s: self.shutter_s,
+        }
+    }
+
+    /// What the survey is planned from; `gsd_m` is the GSD at the target, for the blur limit.
+    pub fn survey_inputs(&self, gsd_m: f64) -> SurveyInputs {
+        let looks_down = match self.offset {
+            Offset::GroundDistance(g) => g <= 0.0,
+            Offset::Tilt(t) => t <= 0.0,
+        };
+        SurveyInputs {
+            sensor_width_mm: self.sensor_width_mm,
+            sensor_height_mm: self.sensor_height_mm,
+            focal_mm: self.focal_mm,
+            height_m: self.height_m,
+            looks_down,
+            gsd_m,
+            front_overlap_pct: self.front_overlap_pct,
+            side_overlap_pct: self.side_overlap_pct,
+            area_width_m: self.area_width_m,
+            area_length_m: self.area_length_m,
+            speed_mps: self.speed_mps,
+            shutter_s: self.shutter_s,
+            trigger_s: self.trigger_s,
+            endurance_min: self.endurance_min,
+            turn_s: self.turn_s,
+            photo_mb: self.photo_mb,
+            blur_budget_px: self.blur_budget_px,
+            latitude_deg: self.latitude_deg,
+            longitude_deg: self.longitude_deg,
+            heading_deg: self.heading_deg,
         }
     }
 

@@ -10,8 +10,7 @@
 //! exactly their planned lengths; on a curved surface the fourth side differs from the width by a
 //! little (under a millimetre for a field of a few kilometres, centimetres at tens of kilometres).
 
-use crate::core::contract::scenario::Scenario;
-use crate::core::planning::survey::{flies_forward, SurveyPlan};
+use crate::core::planning::survey::{flies_forward, SurveyInputs, SurveyPlan};
 use geographiclib_rs::{DirectGeodesic, Geodesic, InverseGeodesic};
 use serde_json::{json, Map, Value};
 
@@ -140,26 +139,26 @@ impl Place {
 /// The survey as a GeoJSON FeatureCollection (RFC 7946), or `None` when the origin or the area is
 /// missing or the area cannot be drawn in longitude and latitude; [`survey_geojson_checked`]
 /// says why.
-pub fn survey_geojson(scenario: &Scenario, plan: &SurveyPlan) -> Option<String> {
-    survey_geojson_checked(scenario, plan).ok()
+pub fn survey_geojson(inputs: &SurveyInputs, plan: &SurveyPlan, name: &str) -> Option<String> {
+    survey_geojson_checked(inputs, plan, name).ok()
 }
 
 /// The survey as a GeoJSON FeatureCollection (RFC 7946): the area polygon (one counter-clockwise
 /// outer ring) and each flight line as a LineString in flying order, with the line number and
 /// direction as properties. Lines are left out when the plan has no line count.
-pub fn survey_geojson_checked(scenario: &Scenario, plan: &SurveyPlan) -> Result<String, ExportProblem> {
-    let lat0 = scenario.latitude_deg.filter(|v| v.is_finite() && v.abs() < 90.0);
-    let lon0 = scenario.longitude_deg.filter(|v| v.is_finite());
+pub fn survey_geojson_checked(inputs: &SurveyInputs, plan: &SurveyPlan, name: &str) -> Result<String, ExportProblem> {
+    let lat0 = inputs.latitude_deg.filter(|v| v.is_finite() && v.abs() < 90.0);
+    let lon0 = inputs.longitude_deg.filter(|v| v.is_finite());
     let (Some(lat0), Some(lon0)) = (lat0, lon0) else {
         return Err(ExportProblem::NoOrigin);
     };
     let lon0 = wrap180(lon0);
     let usable = |v: Option<f64>| v.filter(|x| x.is_finite() && *x > 0.0);
-    let (Some(width), Some(length)) = (usable(scenario.area_width_m), usable(scenario.area_length_m)) else {
+    let (Some(width), Some(length)) = (usable(inputs.area_width_m), usable(inputs.area_length_m)) else {
         return Err(ExportProblem::NoArea);
     };
-    let heading = if scenario.heading_deg.is_finite() {
-        wrap360(scenario.heading_deg)
+    let heading = if inputs.heading_deg.is_finite() {
+        wrap360(inputs.heading_deg)
     } else {
         0.0
     };
@@ -229,8 +228,8 @@ pub fn survey_geojson_checked(scenario: &Scenario, plan: &SurveyPlan) -> Result<
 
     let mut area_properties = Map::new();
     area_properties.insert("kind".into(), json!("survey_area"));
-    if !scenario.name.is_empty() {
-        area_properties.insert("name".into(), json!(scenario.name));
+    if !name.is_empty() {
+        area_properties.insert("name".into(), json!(name));
     }
     area_properties.insert("width_m".into(), json!(width));
     area_properties.insert("length_m".into(), json!(length));

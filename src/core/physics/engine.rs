@@ -60,26 +60,6 @@ impl Limit {
             Limit::Motion => "motion",
         }
     }
-
-    /// The limit's name in plain words.
-    pub fn title(self) -> &'static str {
-        match self {
-            Limit::Sampling => "Pixel sampling (GSD)",
-            Limit::Diffraction => "Lens diffraction (Rayleigh)",
-            Limit::Turbulence => "Air turbulence (seeing)",
-            Limit::Motion => "Motion during the exposure",
-        }
-    }
-
-    /// What a person can change to make this limit smaller.
-    pub fn advice(self) -> &'static str {
-        match self {
-            Limit::Sampling => "Fly lower or stand closer, use a longer focal length, or a sensor with smaller pixels.",
-            Limit::Diffraction => "Open the aperture (a smaller f-number), or come closer; a longer lens at the same f-number also helps.",
-            Limit::Turbulence => "Shorten the air path (fly lower, stand closer), work early in the morning or in overcast, or keep the path away from hot ground.",
-            Limit::Motion => "Use a shorter exposure time or a slower ground speed.",
-        }
-    }
 }
 
 /// The four limits as distances at the target (m).

@@ -59,11 +59,20 @@ pub fn box_mtf(width_times_frequency: f64) -> f64 {
     }
 }
 
-/// Short-term description of what limits a sampled optical system, from Q (GIQE 5.0).
-pub fn sampling_regime(q: f64) -> &'static str {
+/// What limits a sampled optical system, from Q (GIQE 5.0).
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum SamplingRegime {
+    /// Q < 2: the pixels are coarser than the optics.
+    DetectorLimited,
+    /// Q ≥ 2: the lens blur spans more than two pixels.
+    OpticsLimited,
+}
+
+/// The sampling regime of Q = λN/p (GIQE 5.0).
+pub fn sampling_regime(q: f64) -> SamplingRegime {
     if q < 2.0 {
-        "detector-limited: the pixels are coarser than the optics, fine patterns may alias"
+        SamplingRegime::DetectorLimited
     } else {
-        "optics-limited: the lens blur spans more than two pixels"
+        SamplingRegime::OpticsLimited
     }
 }

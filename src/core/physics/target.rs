@@ -34,16 +34,6 @@ impl Task {
             Task::Identification => 6.4,
         }
     }
-
-    /// The task in plain words.
-    pub fn describe(self) -> &'static str {
-        match self {
-            Task::Detection => "see that something is there",
-            Task::Orientation => "tell which way it lies",
-            Task::Recognition => "tell what kind of thing it is (a person, a vehicle, an animal)",
-            Task::Identification => "tell which one it is (this person, this model)",
-        }
-    }
 }
 
 /// Critical dimension commonly used for a standing person in range-performance work (from memory;

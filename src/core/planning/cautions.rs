@@ -1,17 +1,30 @@
 //! Cautions shown beside every plan: aviation height and privacy. They inform; they never decide
-//! that a flight is allowed (resolution-model §8).
-
-use serde::Serialize;
+//! that a flight is allowed (resolution-model §8). The words layer words them.
 
 /// Height above which many jurisdictions cap small unmanned aircraft: 120 m (about 400 ft),
 /// e.g. US 14 CFR §107.51 and the EU open category of Regulation 2019/947.
 pub const COMMON_HEIGHT_CAP_M: f64 = 120.0;
 
-/// One caution with a stable code for tests and a sentence for people.
-#[derive(Clone, Debug, PartialEq, Serialize)]
-pub struct Caution {
-    pub code: &'static str,
-    pub text: String,
+/// One caution.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum Caution {
+    /// Always present: the planner estimates, it never says a flight is allowed.
+    General,
+    /// Above [`COMMON_HEIGHT_CAP_M`]; `airborne` when the camera is carried by an aircraft.
+    Height { airborne: bool },
+    /// A person in the images could be identified.
+    Privacy,
+}
+
+impl Caution {
+    /// A stable code for tests, styling and the report.
+    pub fn code(self) -> &'static str {
+        match self {
+            Caution::General => "general",
+            Caution::Height { .. } => "height",
+            Caution::Privacy => "privacy",
+        }
+    }
 }
 
 /// What the cautions depend on.
@@ -26,36 +39,14 @@ pub struct CautionInputs {
 
 /// The cautions for a plan; the general one is always present.
 pub fn cautions(inputs: CautionInputs) -> Vec<Caution> {
-    let mut out = vec![Caution {
-        code: "general",
-        text: "This planner estimates image detail; it does not tell you that a flight or a camera \
-               placement is allowed. Rules differ between countries and change: check the rules \
-               where you work, and follow licensed practice."
-            .to_string(),
-    }];
+    let mut out = vec![Caution::General];
     if inputs.height_m > COMMON_HEIGHT_CAP_M {
-        let aircraft = if inputs.airborne {
-            ""
-        } else {
-            " (if this camera is carried by an aircraft)"
-        };
-        out.push(Caution {
-            code: "height",
-            text: format!(
-                "The height is above 120 m (400 ft){aircraft}. Many jurisdictions cap small unmanned \
-                 aircraft at about that height above the ground and require the pilot to keep the \
-                 aircraft in sight. Check local rules before planning this."
-            ),
+        out.push(Caution::Height {
+            airborne: inputs.airborne,
         });
     }
     if inputs.identifies_people {
-        out.push(Caution {
-            code: "privacy",
-            text: "At this resolution a person in the images could be identified. In many \
-                   jurisdictions such images are personal data: tell people nearby, avoid private \
-                   spaces, keep only what the job needs, and check local privacy law."
-                .to_string(),
-        });
+        out.push(Caution::Privacy);
     }
     out
 }

@@ -21,14 +21,6 @@ pub enum Axis {
 }
 
 impl Axis {
-    /// The quantity in plain words.
-    pub fn noun(self) -> &'static str {
-        match self {
-            Axis::Height => "height",
-            Axis::GroundDistance => "ground distance",
-        }
-    }
-
     /// The smallest and largest value the solves consider (m).
     pub fn domain(self) -> (f64, f64) {
         match self {
@@ -299,26 +291,5 @@ pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need_m: f64) -> Foca
             focal_m: for_diffraction,
             bound_by: Limit::Diffraction,
         }
-    }
-}
-
-/// The reach in one plain sentence; `format_length` renders a distance in the person's units.
-pub fn describe_reach(reach: &Reach, axis: Axis, need_text: &str, format_length: impl Fn(f64) -> String) -> String {
-    let noun = axis.noun();
-    match *reach {
-        Reach::UpTo { position_m, bound_by } => format!(
-            "{need_text} is met up to a {noun} of {}; beyond that {} exceeds it.",
-            format_length(position_m),
-            bound_by.title().to_lowercase()
-        ),
-        Reach::Everywhere { up_to_m } => {
-            format!("{need_text} is met at every {noun} up to {}.", format_length(up_to_m))
-        }
-        Reach::Nowhere { forbidden_by, best_m } => format!(
-            "{need_text} cannot be met at any {noun}: {} alone is {} even close in. {}",
-            forbidden_by.title().to_lowercase(),
-            format_length(best_m),
-            forbidden_by.advice()
-        ),
     }
 }

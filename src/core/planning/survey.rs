@@ -3,13 +3,11 @@
 //! blur and the camera's shortest interval allow; overlap guidance; and a plain-data diagram of
 //! the first lines for the page to draw.
 //!
-//! Architecture invariant: the survey takes any scenario, validated or not, and answers with
-//! finite numbers, or `None` beside a note that says why. Counts are capped before anything uses
-//! them, nothing is looped over or allocated per photo, and no division can meet a zero.
+//! Architecture invariant: the survey takes any inputs, validated or not, and answers with
+//! finite numbers, or `None` beside a typed note that says why (the words layer words it).
+//! Counts are capped before anything uses them, nothing is looped over or allocated per photo,
+//! and no division can meet a zero.
 
-use crate::core::contract::scenario::{Offset, Scenario};
-use crate::core::physics::engine::Evaluation;
-use crate::core::words::format::significant;
 use serde::Serialize;
 
 /// The most flight lines a plan counts; beyond it the counts are withheld with a note, since such
@@ -25,31 +23,163 @@ pub const MAX_DRAWN_LINES: u64 = 60;
 /// How many photos of line 1 the diagram outlines, so that the front overlap shows.
 pub const DRAWN_PHOTOS_LINE_1: u64 = 3;
 
-/// A speed that the plan exceeds, why it matters, and what to change.
-#[derive(Clone, Debug, PartialEq, Serialize)]
-pub struct SpeedFlag {
-    /// `blur` (smear beyond the budget) or `trigger` (photos due faster than the camera can take them).
-    pub code: &'static str,
-    /// The largest ground speed that this limit allows, m/s.
-    pub limit_mps: f64,
-    /// Why the planned speed is a problem, in plain words.
-    pub reason: String,
-    /// What a person can change.
-    pub change: String,
+/// What the survey needs, in the contract's units (mm for the sensor and lens, % for overlaps).
+#[derive(Clone, Copy, Debug, Default, PartialEq)]
+pub struct SurveyInputs {
+    pub sensor_width_mm: f64,
+    pub sensor_height_mm: f64,
+    pub focal_mm: f64,
+    pub height_m: f64,
+    /// False when the scenario looks at a tilt or at a ground distance: the layout still assumes
+    /// straight down, and a note says so.
+    pub looks_down: bool,
+    /// The GSD at the target, for the blur limit.
+    pub gsd_m: f64,
+    pub front_overlap_pct: f64,
+    pub side_overlap_pct: f64,
+    /// Width across the lines and length along them.
+    pub area_width_m: Option<f64>,
+    pub area_length_m: Option<f64>,
+    pub speed_mps: f64,
+    pub shutter_s: f64,
+    /// The camera's shortest interval between photos.
+    pub trigger_s: f64,
+    pub endurance_min: f64,
+    pub turn_s: f64,
+    pub photo_mb: f64,
+    pub blur_budget_px: f64,
+    /// The area's first corner (WGS 84) and the heading of the lines, for the map export.
+    pub latitude_deg: Option<f64>,
+    pub longitude_deg: Option<f64>,
+    pub heading_deg: f64,
 }
 
-/// Which common practice the chosen overlaps match, in words.
-#[derive(Clone, Debug, PartialEq, Serialize)]
-pub struct OverlapGuidance {
-    /// `low`, `light`, `mapping`, `3d` or `heavy`, for tests and styling.
-    pub code: &'static str,
-    /// The guidance for people.
-    pub text: String,
+/// Which overlap a note is about.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum OverlapSide {
+    Front,
+    Side,
+}
+
+/// Which side of the area a note is about.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum AreaSide {
+    /// Across the lines (`aw`).
+    Width,
+    /// Along the lines (`al`).
+    Length,
+}
+
+/// What the survey assumed, left out or capped, with the figures in SI.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub enum SurveyNote {
+    /// The layout assumes straight down although the scenario looks at a tilt or a distance.
+    AssumesStraightDown,
+    /// The photo footprint is zero.
+    NoFootprint,
+    /// An overlap outside [0, 100) %.
+    OverlapUnusable { side: OverlapSide, pct: f64 },
+    /// Neither side of the area is given.
+    NoArea,
+    /// One side of the area is missing.
+    AreaSideMissing { side: AreaSide },
+    /// One side of the area is not a usable length.
+    AreaSideUnusable { side: AreaSide, value: f64 },
+    /// More than [`MAX_LINES`] lines.
+    TooManyLines { width_m: f64, spacing_m: f64 },
+    /// More than [`MAX_PHOTOS`] photos on a line.
+    TooManyPhotosPerLine { length_m: f64, base_m: f64 },
+    /// More than [`MAX_PHOTOS`] photos in all.
+    TooManyPhotos { lines: u64, photos_per_line: u64 },
+    /// No usable ground speed.
+    NoSpeed,
+    /// The flight time overflows.
+    FlightTimeUncountable,
+    /// No usable flight time per battery.
+    NoEndurance,
+    /// What the flight time leaves out (take-off, transit, landing).
+    FlightTimeCovers,
+}
+
+/// A speed that the plan exceeds, with what the words need to say why and what to change.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub enum SpeedFlag {
+    /// The smear in one exposure exceeds the blur budget.
+    Blur {
+        speed_mps: f64,
+        limit_mps: f64,
+        budget_px: f64,
+        exposure_s: f64,
+    },
+    /// Photos would be due faster than the camera can take them.
+    Trigger {
+        speed_mps: f64,
+        limit_mps: f64,
+        /// The interval the plan asks for at this speed.
+        due_s: Option<f64>,
+        camera_interval_s: f64,
+    },
+}
+
+impl SpeedFlag {
+    /// `blur` or `trigger`, for tests, styling and the report.
+    pub fn code(&self) -> &'static str {
+        match self {
+            SpeedFlag::Blur { .. } => "blur",
+            SpeedFlag::Trigger { .. } => "trigger",
+        }
+    }
+
+    /// The largest ground speed this limit allows, m/s.
+    pub fn limit_mps(&self) -> f64 {
+        match *self {
+            SpeedFlag::Blur { limit_mps, .. } | SpeedFlag::Trigger { limit_mps, .. } => limit_mps,
+        }
+    }
+}
+
+/// Where the chosen overlaps sit against common practice.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum OverlapClass {
+    /// Not numbers the layout can use.
+    NotNumbers,
+    /// Below even classic film surveys (60 % / 30 %).
+    Low,
+    /// Beyond what 3D models need.
+    Heavy,
+    /// Suits 3D models of buildings and trees (80–90 % / 70–80 %).
+    ThreeD,
+    /// Suits a mapping orthomosaic (75–80 % / 60–70 %).
+    Mapping,
+    /// Between film surveys and drone mapping.
+    Light,
+}
+
+impl OverlapClass {
+    /// `low`, `light`, `mapping`, `3d` or `heavy`, for tests, styling and the report.
+    pub fn code(self) -> &'static str {
+        match self {
+            OverlapClass::NotNumbers | OverlapClass::Low => "low",
+            OverlapClass::Heavy => "heavy",
+            OverlapClass::ThreeD => "3d",
+            OverlapClass::Mapping => "mapping",
+            OverlapClass::Light => "light",
+        }
+    }
+}
+
+/// The chosen overlaps and where they sit.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct OverlapAdvice {
+    pub class: OverlapClass,
+    pub front_pct: f64,
+    pub side_pct: f64,
 }
 
 /// The survey figures of a plan, in SI units; field names are the report's
 /// (`url-and-report.md`). Fields that need the area, a speed or a camera interval are `None`
-/// when that input is missing, and `survey_notes` says so.
+/// when that input is missing, and a note says so. The typed flags and notes are not serialised:
+/// the report carries them in words.
 #[derive(Clone, Debug, PartialEq, Serialize)]
 pub struct SurveyPlan {
     /// Ground width of one photo across the flight direction: sensor width·h/f (plain geometry;
@@ -85,12 +215,14 @@ pub struct SurveyPlan {
     /// interval; `None` when the camera's interval is 0 (not limiting).
     pub max_speed_trigger_mps: Option<f64>,
     /// The limits that the planned speed exceeds.
+    #[serde(skip)]
     pub speed_flags: Vec<SpeedFlag>,
-    /// Which common practice the overlaps match.
-    pub overlap_guidance: OverlapGuidance,
-    /// Plain messages about what the survey assumed, left out or capped. Named `survey_notes`
-    /// rather than `notes` because the report flattens this struct into its own fields.
-    pub survey_notes: Vec<String>,
+    /// Where the overlaps sit against common practice.
+    #[serde(skip)]
+    pub overlap: OverlapAdvice,
+    /// What the survey assumed, left out or capped.
+    #[serde(skip)]
+    pub notes: Vec<SurveyNote>,
 }
 
 /// A finite, strictly positive number, or `None`.
@@ -138,158 +270,125 @@ fn footprint_m(sensor_mm: f64, height_m: f64, focal_mm: f64) -> f64 {
 }
 
 /// An overlap percentage as a fraction in [0, 1), or `None` (with a note) when it cannot be used.
-fn overlap_fraction(pct: f64, which: &str, notes: &mut Vec<String>) -> Option<f64> {
+fn overlap_fraction(pct: f64, side: OverlapSide, notes: &mut Vec<SurveyNote>) -> Option<f64> {
     if pct.is_finite() && (0.0..100.0).contains(&pct) {
         Some(pct / 100.0)
     } else {
-        notes.push(format!(
-            "The {which} overlap must be at least 0 % and below 100 %; with {} % there is no layout.",
-            significant(pct)
-        ));
+        notes.push(SurveyNote::OverlapUnusable { side, pct });
         None
     }
 }
 
-/// A length for notes, in metres with three significant figures.
-fn metres(x: f64) -> String {
-    format!("{} m", significant(x))
+/// One photo's footprint and the distances between photos and between lines.
+struct Spacing {
+    across_m: f64,
+    along_m: f64,
+    base_m: f64,
+    line_spacing_m: f64,
 }
 
-/// A speed for flags, in m/s and km/h.
-fn speed_words(mps: f64) -> String {
-    format!("{} m/s ({} km/h)", significant(mps), significant(mps * 3.6))
+/// The footprint, base and line spacing, with notes on what makes them zero.
+fn spacing(inputs: &SurveyInputs, notes: &mut Vec<SurveyNote>) -> Spacing {
+    if !inputs.looks_down {
+        notes.push(SurveyNote::AssumesStraightDown);
+    }
+    let h = inputs.height_m;
+    let across_m = footprint_m(inputs.sensor_width_mm, h, inputs.focal_mm);
+    let along_m = footprint_m(inputs.sensor_height_mm, h, inputs.focal_mm);
+    if across_m <= 0.0 || along_m <= 0.0 {
+        notes.push(SurveyNote::NoFootprint);
+    }
+    let front = overlap_fraction(inputs.front_overlap_pct, OverlapSide::Front, notes);
+    let side = overlap_fraction(inputs.side_overlap_pct, OverlapSide::Side, notes);
+    Spacing {
+        across_m,
+        along_m,
+        base_m: front.map_or(0.0, |fo| (1.0 - fo) * along_m),
+        line_spacing_m: side.map_or(0.0, |so| (1.0 - so) * across_m),
+    }
 }
 
-/// Lays out the survey for a scenario, whatever its values: see [`SurveyPlan`] for each figure.
-pub fn plan_survey(scenario: &Scenario, evaluation: &Evaluation) -> SurveyPlan {
-    let mut notes: Vec<String> = Vec::new();
-
-    let tilted = match scenario.offset {
-        Offset::GroundDistance(g) => g > 0.0,
-        Offset::Tilt(t) => t > 0.0,
-    };
-    if tilted {
-        notes.push(
-            "The footprint, spacing and counts assume a camera looking straight down; the tilt or \
-             ground distance is ignored for them (the blur limit uses the GSD at the target)."
-                .to_string(),
-        );
-    }
-
-    let h = scenario.height_m;
-    let footprint_across_m = footprint_m(scenario.sensor_width_mm, h, scenario.focal_mm);
-    let footprint_along_m = footprint_m(scenario.sensor_height_mm, h, scenario.focal_mm);
-    if footprint_across_m <= 0.0 || footprint_along_m <= 0.0 {
-        notes.push(
-            "The photo footprint is zero (check the sensor size, the focal length and the height), \
-             so there is no layout."
-                .to_string(),
-        );
-    }
-
-    let front = overlap_fraction(scenario.front_overlap_pct, "front", &mut notes);
-    let side = overlap_fraction(scenario.side_overlap_pct, "side", &mut notes);
-    let base_m = front.map_or(0.0, |fo| (1.0 - fo) * footprint_along_m);
-    let line_spacing_m = side.map_or(0.0, |so| (1.0 - so) * footprint_across_m);
-
-    let speed = positive(scenario.speed_mps);
-    let trigger_s = speed.and_then(|v| ratio(base_m, v)).filter(|_| base_m > 0.0);
-
-    // The area: both sides are needed for counts; say which is missing or unusable.
-    let width = scenario.area_width_m;
-    let length = scenario.area_length_m;
-    match (width, length) {
-        (None, None) => notes.push(
-            "No survey area given: give its width across the lines (aw) and its length along them \
-             (al) for the line and photo counts, path, flight time, batteries and storage."
-                .to_string(),
-        ),
-        (None, Some(_)) => notes.push(
-            "The area width across the lines (aw) is missing: the line count and everything \
-             after it need it."
-                .to_string(),
-        ),
-        (Some(_), None) => notes.push(
-            "The area length along the lines (al) is missing: the photo count and everything \
-             after it need it."
-                .to_string(),
-        ),
+/// The area's sides when usable, with notes on what is missing or unusable.
+fn area(inputs: &SurveyInputs, notes: &mut Vec<SurveyNote>) -> (Option<f64>, Option<f64>) {
+    match (inputs.area_width_m, inputs.area_length_m) {
+        (None, None) => notes.push(SurveyNote::NoArea),
+        (None, Some(_)) => notes.push(SurveyNote::AreaSideMissing { side: AreaSide::Width }),
+        (Some(_), None) => notes.push(SurveyNote::AreaSideMissing { side: AreaSide::Length }),
         (Some(_), Some(_)) => {}
     }
-    let usable = |x: Option<f64>, what: &str, notes: &mut Vec<String>| match x {
+    let mut usable = |x: Option<f64>, side: AreaSide| match x {
         Some(v) if v.is_finite() && v >= 0.0 => Some(v),
-        Some(v) => {
-            notes.push(format!("The area {what} ({}) is not a usable length.", significant(v)));
+        Some(value) => {
+            notes.push(SurveyNote::AreaSideUnusable { side, value });
             None
         }
         None => None,
     };
-    let width = usable(width, "width", &mut notes);
-    let length = usable(length, "length", &mut notes);
+    (
+        usable(inputs.area_width_m, AreaSide::Width),
+        usable(inputs.area_length_m, AreaSide::Length),
+    )
+}
 
+/// Lines, photos per line and photos in all, each withheld (with a note) above its cap.
+fn counts(
+    width: Option<f64>,
+    length: Option<f64>,
+    sp: &Spacing,
+    notes: &mut Vec<SurveyNote>,
+) -> (Option<u64>, Option<u64>, Option<u64>) {
     let lines = match width {
-        Some(w) if line_spacing_m > 0.0 => {
-            let n = stations(w, line_spacing_m, MAX_LINES);
+        Some(width_m) if sp.line_spacing_m > 0.0 => {
+            let n = stations(width_m, sp.line_spacing_m, MAX_LINES);
             if n.is_none() {
-                notes.push(format!(
-                    "More than {} flight lines ({} wide at {} apart): the counts are withheld. Check \
-                     the area width, the height and the side overlap.",
-                    MAX_LINES,
-                    metres(w),
-                    metres(line_spacing_m)
-                ));
+                notes.push(SurveyNote::TooManyLines {
+                    width_m,
+                    spacing_m: sp.line_spacing_m,
+                });
             }
             n
         }
         _ => None,
     };
     let photos_per_line = match length {
-        Some(l) if base_m > 0.0 => {
-            let n = stations(l, base_m, MAX_PHOTOS);
+        Some(length_m) if sp.base_m > 0.0 => {
+            let n = stations(length_m, sp.base_m, MAX_PHOTOS);
             if n.is_none() {
-                notes.push(format!(
-                    "More than {} photos on each line ({} long at {} apart): the photo counts are \
-                     withheld. Check the area length, the height and the front overlap.",
-                    MAX_PHOTOS,
-                    metres(l),
-                    metres(base_m)
-                ));
+                notes.push(SurveyNote::TooManyPhotosPerLine {
+                    length_m,
+                    base_m: sp.base_m,
+                });
             }
             n
         }
         _ => None,
     };
     let photos = match (lines, photos_per_line) {
-        (Some(n), Some(p)) => {
-            let total = n.checked_mul(p).filter(|&t| t <= MAX_PHOTOS);
+        (Some(lines), Some(photos_per_line)) => {
+            let total = lines.checked_mul(photos_per_line).filter(|&t| t <= MAX_PHOTOS);
             if total.is_none() {
-                notes.push(format!(
-                    "More than {MAX_PHOTOS} photos in all ({n} lines of {p}): the total and the storage \
-                     are withheld. Split the area or fly higher."
-                ));
+                notes.push(SurveyNote::TooManyPhotos { lines, photos_per_line });
             }
             total
         }
         _ => None,
     };
+    (lines, photos_per_line, photos)
+}
 
-    let path_length_m = match (lines, length) {
-        (Some(n), Some(l)) => {
-            let n = n as f64;
-            Some(n * l + (n - 1.0) * line_spacing_m).filter(|p| p.is_finite())
-        }
-        _ => None,
-    };
-
+/// The flight time over the area and the batteries it needs, with notes on what is left out.
+fn timing(
+    inputs: &SurveyInputs,
+    path_length_m: Option<f64>,
+    lines: Option<u64>,
+    notes: &mut Vec<SurveyNote>,
+) -> (Option<f64>, Option<u64>) {
+    let speed = positive(inputs.speed_mps);
     if speed.is_none() {
-        notes.push(
-            "The ground speed is 0 or not usable: there is no trigger interval, flight time or \
-             battery count. Give the planned ground speed."
-                .to_string(),
-        );
+        notes.push(SurveyNote::NoSpeed);
     }
-    let turn_s = if scenario.turn_s.is_finite() {
-        scenario.turn_s.max(0.0)
+    let turn_s = if inputs.turn_s.is_finite() {
+        inputs.turn_s.max(0.0)
     } else {
         0.0
     };
@@ -299,13 +398,13 @@ pub fn plan_survey(scenario: &Scenario, evaluation: &Evaluation) -> SurveyPlan {
                 .map(|t| t + (n as f64 - 1.0) * turn_s)
                 .filter(|t| t.is_finite());
             if t.is_none() {
-                notes.push("The flight time is too long to count: check the ground speed.".to_string());
+                notes.push(SurveyNote::FlightTimeUncountable);
             }
             t
         }
         _ => None,
     };
-    let endurance_s = positive(scenario.endurance_min * 60.0);
+    let endurance_s = positive(inputs.endurance_min * 60.0);
     let batteries = match (flight_time_s, endurance_s) {
         // The bound only guards the conversion to an integer; the line cap keeps real counts far
         // below it.
@@ -314,79 +413,78 @@ pub fn plan_survey(scenario: &Scenario, evaluation: &Evaluation) -> SurveyPlan {
             .filter(|b| *b < 1e15)
             .map(|b| b as u64),
         (Some(_), None) => {
-            notes.push("No usable flight time per battery: the battery count is left out.".to_string());
+            notes.push(SurveyNote::NoEndurance);
             None
         }
         _ => None,
     };
     if flight_time_s.is_some() {
-        notes.push(
-            "The flight time covers the lines and the turns between them; take-off, climb, transit \
-             to the area, battery changes and landing come on top."
-                .to_string(),
-        );
+        notes.push(SurveyNote::FlightTimeCovers);
     }
-    let storage_mb = match photos {
-        Some(p) if scenario.photo_mb.is_finite() && scenario.photo_mb >= 0.0 => {
-            Some(p as f64 * scenario.photo_mb).filter(|s| s.is_finite())
+    (flight_time_s, batteries)
+}
+
+/// The speeds that blur and the camera's interval allow, and the flags the planned speed raises.
+/// Blur: smear = speed × exposure within the budget (resolution-model §4). Trigger: a photo every
+/// B metres cannot come faster than the camera's shortest interval.
+fn speed_limits(inputs: &SurveyInputs, base_m: f64, due_s: Option<f64>) -> (Option<f64>, Option<f64>, Vec<SpeedFlag>) {
+    let budget_m = inputs.blur_budget_px * inputs.gsd_m;
+    let max_blur = positive(budget_m).and_then(|b| ratio(b, inputs.shutter_s));
+    let max_trigger = positive(base_m).and_then(|b| ratio(b, inputs.trigger_s));
+    let mut flags = Vec::new();
+    // A speed a hair above its limit through rounding is at the limit, not above it.
+    let exceeds = |v: f64, limit: f64| v > limit * (1.0 + 1e-9);
+    if let Some(speed_mps) = positive(inputs.speed_mps) {
+        if let Some(limit_mps) = max_blur.filter(|l| exceeds(speed_mps, *l)) {
+            flags.push(SpeedFlag::Blur {
+                speed_mps,
+                limit_mps,
+                budget_px: inputs.blur_budget_px,
+                exposure_s: inputs.shutter_s,
+            });
+        }
+        if let Some(limit_mps) = max_trigger.filter(|l| exceeds(speed_mps, *l)) {
+            flags.push(SpeedFlag::Trigger {
+                speed_mps,
+                limit_mps,
+                due_s,
+                camera_interval_s: inputs.trigger_s,
+            });
+        }
+    }
+    (max_blur, max_trigger, flags)
+}
+
+/// Lays out the survey for any inputs: see [`SurveyPlan`] for each figure.
+pub fn plan_survey(inputs: &SurveyInputs) -> SurveyPlan {
+    let mut notes: Vec<SurveyNote> = Vec::new();
+    let sp = spacing(inputs, &mut notes);
+    let trigger_s = positive(inputs.speed_mps)
+        .and_then(|v| ratio(sp.base_m, v))
+        .filter(|_| sp.base_m > 0.0);
+    let (width, length) = area(inputs, &mut notes);
+    let (lines, photos_per_line, photos) = counts(width, length, &sp, &mut notes);
+    // Lines·length + (lines − 1)·S: the turns counted as straight hops between neighbouring lines.
+    let path_length_m = match (lines, length) {
+        (Some(n), Some(l)) => {
+            let n = n as f64;
+            Some(n * l + (n - 1.0) * sp.line_spacing_m).filter(|p| p.is_finite())
         }
         _ => None,
     };
-
-    // Speeds that two different things allow. Blur: smear = speed × exposure within the budget
-    // (resolution-model §4). Trigger: a photo every B metres cannot come faster than the camera's
-    // shortest interval.
-    let budget_m = scenario.blur_budget_px * evaluation.gsd_m;
-    let max_speed_blur_mps = positive(budget_m).and_then(|b| ratio(b, scenario.shutter_s));
-    let max_speed_trigger_mps = positive(base_m).and_then(|b| ratio(b, scenario.trigger_s));
-
-    let mut speed_flags = Vec::new();
-    // A speed a hair above its limit through rounding is at the limit, not above it.
-    let exceeds = |v: f64, limit: f64| v > limit * (1.0 + 1e-9);
-    if let (Some(v), Some(limit)) = (speed, max_speed_blur_mps) {
-        if exceeds(v, limit) {
-            speed_flags.push(SpeedFlag {
-                code: "blur",
-                limit_mps: limit,
-                reason: format!(
-                    "At {} the ground moves more than {} pixel during the {} s exposure.",
-                    speed_words(v),
-                    significant(scenario.blur_budget_px),
-                    significant(scenario.shutter_s)
-                ),
-                change: format!(
-                    "Slow to {} or less, or shorten the exposure (a faster shutter).",
-                    speed_words(limit)
-                ),
-            });
+    let (flight_time_s, batteries) = timing(inputs, path_length_m, lines, &mut notes);
+    let storage_mb = match photos {
+        Some(p) if inputs.photo_mb.is_finite() && inputs.photo_mb >= 0.0 => {
+            Some(p as f64 * inputs.photo_mb).filter(|s| s.is_finite())
         }
-    }
-    if let (Some(v), Some(limit)) = (speed, max_speed_trigger_mps) {
-        if exceeds(v, limit) {
-            speed_flags.push(SpeedFlag {
-                code: "trigger",
-                limit_mps: limit,
-                reason: format!(
-                    "At {} a photo is due every {} s, but the camera needs {} s between photos.",
-                    speed_words(v),
-                    trigger_s.map_or_else(|| "—".to_string(), significant),
-                    significant(scenario.trigger_s)
-                ),
-                change: format!(
-                    "Slow to {} or less, lower the front overlap, or use a camera with a shorter interval.",
-                    speed_words(limit)
-                ),
-            });
-        }
-    }
-
-    let overlap_guidance = overlap_guidance(scenario.front_overlap_pct, scenario.side_overlap_pct);
-
+        _ => None,
+    };
+    let (max_speed_blur_mps, max_speed_trigger_mps, speed_flags) = speed_limits(inputs, sp.base_m, trigger_s);
     SurveyPlan {
-        footprint_across_m,
-        footprint_along_m,
-        base_m,
-        line_spacing_m,
+        footprint_across_m: sp.across_m,
+        footprint_along_m: sp.along_m,
+        base_m: sp.base_m,
+        line_spacing_m: sp.line_spacing_m,
         trigger_s,
         lines,
         photos_per_line,
@@ -398,63 +496,32 @@ pub fn plan_survey(scenario: &Scenario, evaluation: &Evaluation) -> SurveyPlan {
         max_speed_blur_mps,
         max_speed_trigger_mps,
         speed_flags,
-        overlap_guidance,
-        survey_notes: notes,
+        overlap: overlap_guidance(inputs.front_overlap_pct, inputs.side_overlap_pct),
+        notes,
     }
 }
 
-/// Words on the chosen front and side overlaps (percent), against common practice: about
+/// Where the chosen front and side overlaps (percent) sit against common practice: about
 /// 75–80 % / 60–70 % for mapping orthomosaics, 80–90 % / 70–80 % for 3D models of buildings and
 /// trees, and 60 % / 30 % for classic film surveys and simple inspection.
-pub fn overlap_guidance(front_pct: f64, side_pct: f64) -> OverlapGuidance {
-    let chosen = format!(
-        "{} % front and {} % side",
-        significant(front_pct),
-        significant(side_pct)
-    );
-    let (code, advice) = if !(front_pct.is_finite() && side_pct.is_finite()) {
-        ("low", "are not numbers the layout can use.".to_string())
+pub fn overlap_guidance(front_pct: f64, side_pct: f64) -> OverlapAdvice {
+    let class = if !(front_pct.is_finite() && side_pct.is_finite()) {
+        OverlapClass::NotNumbers
     } else if front_pct < 60.0 || side_pct < 30.0 {
-        (
-            "low",
-            "is below common practice: neighbouring photos may share too little ground to be \
-             matched, and wind or a turn can leave gaps. Even classic film surveys kept about \
-             60 % front and 30 % side."
-                .to_string(),
-        )
+        OverlapClass::Low
     } else if front_pct > 90.0 || side_pct > 80.0 {
-        (
-            "heavy",
-            "is beyond common practice even for 3D models (about 80–90 % front, 70–80 % side): it \
-             costs photos, storage and flight time for little gain."
-                .to_string(),
-        )
+        OverlapClass::Heavy
     } else if front_pct >= 80.0 && side_pct >= 70.0 {
-        (
-            "3d",
-            "suits 3D models of buildings and trees, where about 80–90 % front and 70–80 % side is \
-             common practice. A flat orthomosaic needs less: about 75–80 % / 60–70 %."
-                .to_string(),
-        )
+        OverlapClass::ThreeD
     } else if front_pct >= 75.0 && side_pct >= 60.0 {
-        (
-            "mapping",
-            "suits a mapping orthomosaic, where about 75–80 % front and 60–70 % side is common \
-             practice. For 3D models of buildings or trees, raise it to about 80–90 % / 70–80 %."
-                .to_string(),
-        )
+        OverlapClass::Mapping
     } else {
-        (
-            "light",
-            "is light: like the 60 % / 30 % of classic film surveys, it gives stereo pairs and \
-             suits simple inspection, but is thin for a drone orthomosaic, where about 75 % front \
-             and 60 % side is common practice."
-                .to_string(),
-        )
+        OverlapClass::Light
     };
-    OverlapGuidance {
-        code,
-        text: format!("Overlap of {chosen} {advice}"),
+    OverlapAdvice {
+        class,
+        front_pct,
+        side_pct,
     }
 }
 
@@ -563,9 +630,9 @@ pub struct Layout {
 /// line lies on the far edge or less than one spacing beyond it, as the count ceil(W/S) + 1
 /// implies. Every line spans y = 0 to the area length, as the path length counts it; photos are
 /// taken at y = 0, B, 2B, … on every line, so neighbouring lines' photos sit side by side.
-pub fn layout(plan: &SurveyPlan, scenario: &Scenario) -> Option<Layout> {
-    let width = scenario.area_width_m.filter(|w| w.is_finite() && *w >= 0.0)?;
-    let length = scenario.area_length_m.filter(|l| l.is_finite() && *l >= 0.0)?;
+pub fn layout(plan: &SurveyPlan, inputs: &SurveyInputs) -> Option<Layout> {
+    let width = inputs.area_width_m.filter(|w| w.is_finite() && *w >= 0.0)?;
+    let length = inputs.area_length_m.filter(|l| l.is_finite() && *l >= 0.0)?;
     let lines_total = plan.lines?;
     let photos_per_line = plan.photos_per_line?;
     let spacing = positive(plan.line_spacing_m)?;

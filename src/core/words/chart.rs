@@ -214,7 +214,7 @@ pub fn build(sweep: &Sweep, need_m: Option<f64>, reach_m: Option<f64>, crossings
         plot_right,
         plot_top: TOP,
         plot_bottom,
-        x_title: format!("{} ({x_unit})", capitalise(axis.noun())),
+        x_title: format!("{} ({x_unit})", capitalise(crate::core::words::notes::axis_noun(axis))),
         y_title: format!("Smallest detail ({y_unit})"),
         series,
         envelope,

@@ -2,4 +2,5 @@
 
 pub mod chart;
 pub mod format;
+pub mod notes;
 pub mod units;

@@ -2,6 +2,7 @@
 
 use crate::core::physics::engine::Limit;
 use crate::core::words::chart::{Chart, HEIGHT, WIDTH};
+use crate::core::words::notes;
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;
@@ -72,14 +73,14 @@ pub fn chart_svg(c: &Chart, title: &str) -> Html {
 pub fn limits_chart(props: &ChartProps) -> Html {
     let plan = &props.state.plan;
     let c = &props.chart;
-    let title = format!("The four limits against {}", plan.sweep.axis.noun());
+    let title = format!("The four limits against {}", notes::axis_noun(plan.sweep.axis));
     html! {
         <section class="panel" id="chart" aria-labelledby="chart-title">
             <h2 id="chart-title">{ title.clone() }</h2>
             { chart_svg(c, &title) }
             <p class="legend">
                 { "Solid: sampling · long dashes: diffraction · dots: turbulence · dash-dot: motion · thick line: the governing envelope. Vertical lines: the current " }
-                { plan.sweep.axis.noun() }{ ", the 120 m (400 ft) height many rules cap drones at, where the governing limit changes, and the greatest " }{ plan.sweep.axis.noun() }{ " meeting the need." }
+                { notes::axis_noun(plan.sweep.axis) }{ ", the 120 m (400 ft) height many rules cap drones at, where the governing limit changes, and the greatest " }{ notes::axis_noun(plan.sweep.axis) }{ " meeting the need." }
             </p>
         </section>
     }

@@ -4,10 +4,9 @@
 use crate::core::contract::scenario::{AirModel, Offset};
 use crate::core::formats::qr::QrSvg;
 use crate::core::physics::engine::Limit;
-use crate::core::planning::solve::describe_reach;
-use crate::core::planning::survey::layout;
 use crate::core::words::chart::Chart;
 use crate::core::words::format;
+use crate::core::words::notes;
 use crate::ui::browser;
 use crate::ui::components::chart::chart_svg;
 use crate::ui::components::survey::diagram;
@@ -93,7 +92,7 @@ pub fn print_sheet(props: &PrintProps) -> Html {
     ];
     let reach = match (r.need_m, r.reach) {
         (Some(need), Some(reach)) => {
-            describe_reach(&reach, plan.sweep.axis, &format!("A detail of {}", len(need)), len)
+            notes::reach(&reach, plan.sweep.axis, &format!("A detail of {}", len(need)), units)
         }
         _ => match props.state.error("need") {
             Some(message) => format!("The required resolution was rejected: {message}"),
@@ -101,8 +100,10 @@ pub fn print_sheet(props: &PrintProps) -> Html {
         },
     };
     let survey = &r.survey;
-    let diagram_html = layout(survey, s)
-        .map(|l| diagram(&l, units, "print"))
+    let diagram_html = plan
+        .layout
+        .as_ref()
+        .map(|l| diagram(l, units, "print"))
         .unwrap_or_default();
     html! {
         <section class="print-sheet" aria-hidden="true">
@@ -129,12 +130,12 @@ pub fn print_sheet(props: &PrintProps) -> Html {
                     <table class="print-table">
                         { for Limit::ALL.iter().map(|&l| html! {
                             <tr class={classes!((l == r.governing).then_some("governs"))}>
-                                <th>{ l.title() }</th>
+                                <th>{ notes::limit_title(l) }</th>
                                 <td>{ len(match l { Limit::Sampling => r.gsd_m, Limit::Diffraction => r.diffraction_m, Limit::Turbulence => r.turbulence_m, Limit::Motion => r.motion_m }) }{ if l == r.governing { " — governs" } else { "" } }</td>
                             </tr>
                         }) }
                     </table>
-                    <p>{ format!("{} governs at {}. {}", r.governing.title(), len(r.limit_m), r.advice) }</p>
+                    <p>{ format!("{} governs at {}. {}", notes::limit_title(r.governing), len(r.limit_m), r.advice) }</p>
                     <p>{ reach }</p>
                 </div>
                 <div>{ chart_svg(c, "The four limits") }</div>

@@ -3,6 +3,7 @@
 use crate::core::contract::inputs::{input, inputs_of};
 use crate::core::physics::engine::Limit;
 use crate::core::words::format;
+use crate::core::words::notes;
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;
@@ -86,12 +87,12 @@ pub fn results(props: &ResultsProps) -> Html {
                 <p class="stale-note" role="status">{ format!("Some inputs are invalid ({}); their defaults are used until you fix them, so results marked “uses a default” may be wrong.", all_invalid.join(", ")) }</p>
             }
             <p class="governing" data-key="governing" data-si={governing.key()}>
-                <strong>{ format!("{} governs: ", governing.title()) }</strong>
+                <strong>{ format!("{} governs: ", notes::limit_title(governing)) }</strong>
                 { value("limit_m", report.limit_m, format::length(report.limit_m, units)) }
                 if report.governing_margin > 1.0 {
-                    { format!(", {} the next limit, {}.", format::times(report.governing_margin), lower_first(runner_up.title())) }
+                    { format!(", {} the next limit, {}.", format::times(report.governing_margin), lower_first(notes::limit_title(runner_up))) }
                 } else {
-                    { format!(", level with {}.", lower_first(runner_up.title())) }
+                    { format!(", level with {}.", lower_first(notes::limit_title(runner_up))) }
                 }
             </p>
             <p class="advice" data-key="advice" data-si={report.advice}>{ format!("To see finer detail: {}", report.advice) }</p>
@@ -109,7 +110,7 @@ pub fn results(props: &ResultsProps) -> Html {
                     let share = if report.limit_m > 0.0 { v / report.limit_m } else { 0.0 };
                     html! {
                         <article class={classes!("limit", is_gov.then_some("governs"), (!invalid.is_empty()).then_some("stale"))} data-limit={limit.key()}>
-                            <h3>{ limit.title() }</h3>
+                            <h3>{ notes::limit_title(limit) }</h3>
                             <p class="big">{ value(key, v, format::length(v, units)) }</p>
                             <p class="tag">{ if is_gov { "GOVERNS".to_string() } else { format!("{} of the governing limit", format::percent(share)) } }</p>
                             <p class="detail">{ detail(limit, state) }</p>

@@ -2,8 +2,9 @@
 //! would do, and where the limits cross.
 
 use crate::core::physics::engine::Limit;
-use crate::core::planning::solve::{describe_reach, Crossing, FocalNeed, Reach};
+use crate::core::planning::solve::{Crossing, FocalNeed, Reach};
 use crate::core::words::format;
+use crate::core::words::notes;
 use crate::ui::components::results::value;
 use crate::ui::state::State;
 use std::rc::Rc;
@@ -23,14 +24,14 @@ fn crossing_text(crossing: &Crossing, a: Limit, noun: &str, length: &dyn Fn(f64)
             larger_above,
         } => format!(
             "{} and pixel sampling are equal at a {noun} of {}: below it {} is larger, above it {}.",
-            a.title(),
+            notes::limit_title(a),
             length(position_m),
             larger_below.key(),
             larger_above.key()
         ),
         Crossing::Never { larger } => format!(
             "{} and pixel sampling do not cross between 0.1 m and the largest {noun}: {} is the larger throughout.",
-            a.title(),
+            notes::limit_title(a),
             larger.key()
         ),
     }
@@ -53,17 +54,17 @@ pub fn solve_panel(props: &SolveProps) -> Html {
             };
             let focal_text = match focal {
                 FocalNeed::AtLeast { focal_m, bound_by } => html! { <>
-                    { format!("At the current {} a focal length of at least ", axis.noun()) }
+                    { format!("At the current {} a focal length of at least ", notes::axis_noun(axis)) }
                     { value("focal_needed_m", focal_m, format!("{} mm", format::significant(focal_m * 1000.0))) }
                     { format!(" at f/{} meets it ({} sets it).", format::significant(plan.scenario.f_number), bound_by.key()) }
                 </> },
                 FocalNeed::Impossible { forbidden_by } => html! {
-                    { format!("No lens meets it at the current {}: {} does not depend on the lens. {}", axis.noun(), forbidden_by.key(), forbidden_by.advice()) }
+                    { format!("No lens meets it at the current {}: {} does not depend on the lens. {}", notes::axis_noun(axis), forbidden_by.key(), notes::limit_advice(forbidden_by)) }
                 },
             };
             html! { <>
                 <p class="reach" data-reach={match reach { Reach::UpTo{..} => "up_to", Reach::Everywhere{..} => "everywhere", Reach::Nowhere{..} => "nowhere" }}>
-                    <strong>{ describe_reach(&reach, axis, &need_text, length) }</strong>
+                    <strong>{ notes::reach(&reach, axis, &need_text, units) }</strong>
                     if matches!(reach, Reach::UpTo { .. }) { <span class="sr-only">{ " Greatest: " }{ reach_html }</span> }
                 </p>
                 <p>{ focal_text }</p>
@@ -78,10 +79,10 @@ pub fn solve_panel(props: &SolveProps) -> Html {
             <h2 id="solve-title">{ "How high or how far" }</h2>
             { need_block }
             <ul class="crossings">
-                <li>{ crossing_text(&report.diffraction_crossing, Limit::Diffraction, axis.noun(), &length) }</li>
-                <li>{ crossing_text(&report.turbulence_crossing, Limit::Turbulence, axis.noun(), &length) }</li>
+                <li>{ crossing_text(&report.diffraction_crossing, Limit::Diffraction, notes::axis_noun(axis), &length) }</li>
+                <li>{ crossing_text(&report.turbulence_crossing, Limit::Turbulence, notes::axis_noun(axis), &length) }</li>
                 { for report.envelope_changes.iter().map(|c| html! {
-                    <li>{ format!("At a {} of {} the governing limit changes from {} to {}.", axis.noun(), length(c.position_m), c.from.key(), c.to.key()) }</li>
+                    <li>{ format!("At a {} of {} the governing limit changes from {} to {}.", notes::axis_noun(axis), length(c.position_m), c.from.key(), c.to.key()) }</li>
                 }) }
             </ul>
         </section>

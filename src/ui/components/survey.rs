@@ -1,8 +1,7 @@
 //! The survey panel: footprint, overlaps, lines, photos, speed limits, flight time, the layout
 //! diagram and the GeoJSON export.
 
-use crate::core::formats::geojson::survey_geojson_checked;
-use crate::core::planning::survey::{layout, Layout};
+use crate::core::planning::survey::Layout;
 use crate::core::words::format;
 use crate::ui::browser;
 use crate::ui::components::results::value;
@@ -98,7 +97,8 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
     let units = scenario.units;
     let len = |v: f64| format::length(v, units);
     let spd = |v: f64| format::speed(v, units);
-    let export = survey_geojson_checked(scenario, s);
+    let export = plan.geojson.clone();
+    let words = &plan.report.survey_words;
     let on_export = {
         let export = export.clone();
         let name = scenario.name.clone();
@@ -126,16 +126,16 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
                 <dt>{ "Fastest speed within the blur budget" }</dt><dd>{ maybe("max_speed_blur_mps", s.max_speed_blur_mps, spd) }</dd>
                 <dt>{ "Fastest speed the photo interval allows" }</dt><dd>{ maybe("max_speed_trigger_mps", s.max_speed_trigger_mps, spd) }</dd>
             </dl>
-            if !s.speed_flags.is_empty() {
+            if !words.speed_flags.is_empty() {
                 <ul class="flags">
-                    { for s.speed_flags.iter().map(|f| html! {
+                    { for words.speed_flags.iter().map(|f| html! {
                         <li class="flag" data-flag={f.code}><strong>{ format!("Too fast ({}): ", f.code) }</strong>{ format!("{} {}", f.reason, f.change) }</li>
                     }) }
                 </ul>
             }
-            <p class="guidance" data-overlap={s.overlap_guidance.code}>{ s.overlap_guidance.text.clone() }</p>
-            { for s.survey_notes.iter().map(|n| html! { <p class="note">{ n.clone() }</p> }) }
-            if let Some(l) = layout(s, scenario) { { diagram(&l, units, "screen") } }
+            <p class="guidance" data-overlap={words.overlap_guidance.code}>{ words.overlap_guidance.text.clone() }</p>
+            { for words.survey_notes.iter().map(|n| html! { <p class="note">{ n.clone() }</p> }) }
+            if let Some(l) = &plan.layout { { diagram(l, units, "screen") } }
             <p class="export">
                 <button type="button" onclick={on_export} disabled={export.is_err()}>{ "Download flight lines (GeoJSON)" }</button>
                 if let Err(problem) = export { <span class="note">{ format!(" {}", problem.message()) }</span> }

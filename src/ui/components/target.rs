@@ -1,6 +1,7 @@
 //! What a target will look like: Johnson cycles and the chance of each task.
 
 use crate::core::words::format;
+use crate::core::words::notes;
 use crate::ui::components::results::value;
 use crate::ui::state::State;
 use std::rc::Rc;
@@ -34,7 +35,7 @@ pub fn target_panel(props: &TargetProps) -> Html {
                 <tbody>
                 { for report.target_chances.iter().map(|c| html! {
                     <tr data-task={format!("{:?}", c.task).to_lowercase()}>
-                        <th scope="row">{ format!("{:?}", c.task) }<br/><small>{ c.task.describe() }</small></th>
+                        <th scope="row">{ format!("{:?}", c.task) }<br/><small>{ notes::task(c.task) }</small></th>
                         <td>{ format::significant(c.cycles_needed) }</td>
                         <td data-si={c.probability.to_string()}>{ format::percent(c.probability) }</td>
                     </tr>

@@ -1,0 +1,325 @@
+//! Words for the typed results: the physics and the planning return enums with their figures in
+//! SI, and this module alone turns them into sentences, in the units the person chose.
+
+use crate::core::physics::engine::Limit;
+use crate::core::physics::optics::SamplingRegime;
+use crate::core::physics::target::Task;
+use crate::core::planning::cautions::Caution;
+use crate::core::planning::solve::{Axis, Reach};
+use crate::core::planning::survey::{
+    AreaSide, OverlapAdvice, OverlapClass, OverlapSide, SpeedFlag, SurveyNote, SurveyPlan, MAX_LINES, MAX_PHOTOS,
+};
+use crate::core::words::format::{length, significant, speed};
+use crate::core::words::units::Units;
+use serde::Serialize;
+
+/// The limit's name in plain words.
+pub fn limit_title(limit: Limit) -> &'static str {
+    match limit {
+        Limit::Sampling => "Pixel sampling (GSD)",
+        Limit::Diffraction => "Lens diffraction (Rayleigh)",
+        Limit::Turbulence => "Air turbulence (seeing)",
+        Limit::Motion => "Motion during the exposure",
+    }
+}
+
+/// What a person can change to make this limit smaller.
+pub fn limit_advice(limit: Limit) -> &'static str {
+    match limit {
+        Limit::Sampling => "Fly lower or stand closer, use a longer focal length, or a sensor with smaller pixels.",
+        Limit::Diffraction => {
+            "Open the aperture (a smaller f-number), or come closer; a longer lens at the same f-number also helps."
+        }
+        Limit::Turbulence => {
+            "Shorten the air path (fly lower, stand closer), work early in the morning or in overcast, or keep the \
+             path away from hot ground."
+        }
+        Limit::Motion => "Use a shorter exposure time or a slower ground speed.",
+    }
+}
+
+/// The sampling regime in a short phrase (GIQE 5.0).
+pub fn sampling_regime(regime: SamplingRegime) -> &'static str {
+    match regime {
+        SamplingRegime::DetectorLimited => {
+            "detector-limited: the pixels are coarser than the optics, fine patterns may alias"
+        }
+        SamplingRegime::OpticsLimited => "optics-limited: the lens blur spans more than two pixels",
+    }
+}
+
+/// The task in plain words.
+pub fn task(task: Task) -> &'static str {
+    match task {
+        Task::Detection => "see that something is there",
+        Task::Orientation => "tell which way it lies",
+        Task::Recognition => "tell what kind of thing it is (a person, a vehicle, an animal)",
+        Task::Identification => "tell which one it is (this person, this model)",
+    }
+}
+
+/// The quantity the backward solves vary, in plain words.
+pub fn axis_noun(axis: Axis) -> &'static str {
+    match axis {
+        Axis::Height => "height",
+        Axis::GroundDistance => "ground distance",
+    }
+}
+
+/// The reach in one plain sentence, lengths in `units`.
+pub fn reach(reach: &Reach, axis: Axis, need_text: &str, units: Units) -> String {
+    let noun = axis_noun(axis);
+    match *reach {
+        Reach::UpTo { position_m, bound_by } => format!(
+            "{need_text} is met up to a {noun} of {}; beyond that {} exceeds it.",
+            length(position_m, units),
+            limit_title(bound_by).to_lowercase()
+        ),
+        Reach::Everywhere { up_to_m } => {
+            format!("{need_text} is met at every {noun} up to {}.", length(up_to_m, units))
+        }
+        Reach::Nowhere { forbidden_by, best_m } => format!(
+            "{need_text} cannot be met at any {noun}: {} alone is {} even close in. {}",
+            limit_title(forbidden_by).to_lowercase(),
+            length(best_m, units),
+            limit_advice(forbidden_by)
+        ),
+    }
+}
+
+/// A caution in plain words.
+pub fn caution(caution: Caution) -> String {
+    match caution {
+        Caution::General => "This planner estimates image detail; it does not tell you that a flight or a camera \
+                             placement is allowed. Rules differ between countries and change: check the rules \
+                             where you work, and follow licensed practice."
+            .to_string(),
+        Caution::Height { airborne } => {
+            let aircraft = if airborne {
+                ""
+            } else {
+                " (if this camera is carried by an aircraft)"
+            };
+            format!(
+                "The height is above 120 m (400 ft){aircraft}. Many jurisdictions cap small unmanned \
+                 aircraft at about that height above the ground and require the pilot to keep the \
+                 aircraft in sight. Check local rules before planning this."
+            )
+        }
+        Caution::Privacy => "At this resolution a person in the images could be identified. In many \
+                             jurisdictions such images are personal data: tell people nearby, avoid private \
+                             spaces, keep only what the job needs, and check local privacy law."
+            .to_string(),
+    }
+}
+
+/// Why a flagged speed is a problem.
+pub fn speed_flag_reason(flag: &SpeedFlag, units: Units) -> String {
+    match *flag {
+        SpeedFlag::Blur {
+            speed_mps,
+            budget_px,
+            exposure_s,
+            ..
+        } => format!(
+            "At {} the ground moves more than {} pixel during the {} s exposure.",
+            speed(speed_mps, units),
+            significant(budget_px),
+            significant(exposure_s)
+        ),
+        SpeedFlag::Trigger {
+            speed_mps,
+            due_s,
+            camera_interval_s,
+            ..
+        } => format!(
+            "At {} a photo is due every {} s, but the camera needs {} s between photos.",
+            speed(speed_mps, units),
+            due_s.map_or_else(|| "—".to_string(), significant),
+            significant(camera_interval_s)
+        ),
+    }
+}
+
+/// What a person can change about a flagged speed.
+pub fn speed_flag_change(flag: &SpeedFlag, units: Units) -> String {
+    let limit = speed(flag.limit_mps(), units);
+    match flag {
+        SpeedFlag::Blur { .. } => format!("Slow to {limit} or less, or shorten the exposure (a faster shutter)."),
+        SpeedFlag::Trigger { .. } => {
+            format!("Slow to {limit} or less, lower the front overlap, or use a camera with a shorter interval.")
+        }
+    }
+}
+
+/// The chosen overlaps against common practice, in one sentence.
+pub fn overlap(advice: &OverlapAdvice) -> String {
+    let chosen = format!(
+        "{} % front and {} % side",
+        significant(advice.front_pct),
+        significant(advice.side_pct)
+    );
+    let words = match advice.class {
+        OverlapClass::NotNumbers => "are not numbers the layout can use.",
+        OverlapClass::Low => {
+            "is below common practice: neighbouring photos may share too little ground to be matched, and wind \
+             or a turn can leave gaps. Even classic film surveys kept about 60 % front and 30 % side."
+        }
+        OverlapClass::Heavy => {
+            "is beyond common practice even for 3D models (about 80–90 % front, 70–80 % side): it costs photos, \
+             storage and flight time for little gain."
+        }
+        OverlapClass::ThreeD => {
+            "suits 3D models of buildings and trees, where about 80–90 % front and 70–80 % side is common \
+             practice. A flat orthomosaic needs less: about 75–80 % / 60–70 %."
+        }
+        OverlapClass::Mapping => {
+            "suits a mapping orthomosaic, where about 75–80 % front and 60–70 % side is common practice. For 3D \
+             models of buildings or trees, raise it to about 80–90 % / 70–80 %."
+        }
+        OverlapClass::Light => {
+            "is light: like the 60 % / 30 % of classic film surveys, it gives stereo pairs and suits simple \
+             inspection, but is thin for a drone orthomosaic, where about 75 % front and 60 % side is common \
+             practice."
+        }
+    };
+    format!("Overlap of {chosen} {words}")
+}
+
+/// A survey note in plain words, lengths in `units`.
+pub fn survey_note(note: &SurveyNote, units: Units) -> String {
+    let _ = units;
+    let len = |m: f64| format!("{} m", significant(m));
+    match *note {
+        SurveyNote::AssumesStraightDown => "The footprint, spacing and counts assume a camera looking straight \
+                                            down; the tilt or ground distance is ignored for them (the blur \
+                                            limit uses the GSD at the target)."
+            .to_string(),
+        SurveyNote::NoFootprint => "The photo footprint is zero (check the sensor size, the focal length and the \
+                                    height), so there is no layout."
+            .to_string(),
+        SurveyNote::OverlapUnusable { side, pct } => format!(
+            "The {} overlap must be at least 0 % and below 100 %; with {} % there is no layout.",
+            match side {
+                OverlapSide::Front => "front",
+                OverlapSide::Side => "side",
+            },
+            significant(pct)
+        ),
+        SurveyNote::NoArea => "No survey area given: give its width across the lines (aw) and its length along \
+                               them (al) for the line and photo counts, path, flight time, batteries and storage."
+            .to_string(),
+        SurveyNote::AreaSideMissing { side: AreaSide::Width } => "The area width across the lines (aw) is \
+                                                                  missing: the line count and everything after \
+                                                                  it need it."
+            .to_string(),
+        SurveyNote::AreaSideMissing { side: AreaSide::Length } => "The area length along the lines (al) is \
+                                                                   missing: the photo count and everything \
+                                                                   after it need it."
+            .to_string(),
+        SurveyNote::AreaSideUnusable { side, value } => format!(
+            "The area {} ({}) is not a usable length.",
+            match side {
+                AreaSide::Width => "width",
+                AreaSide::Length => "length",
+            },
+            significant(value)
+        ),
+        SurveyNote::TooManyLines { width_m, spacing_m } => format!(
+            "More than {MAX_LINES} flight lines ({} wide at {} apart): the counts are withheld. Check the area \
+             width, the height and the side overlap.",
+            len(width_m),
+            len(spacing_m)
+        ),
+        SurveyNote::TooManyPhotosPerLine { length_m, base_m } => format!(
+            "More than {MAX_PHOTOS} photos on each line ({} long at {} apart): the photo counts are withheld. \
+             Check the area length, the height and the front overlap.",
+            len(length_m),
+            len(base_m)
+        ),
+        SurveyNote::TooManyPhotos { lines, photos_per_line } => format!(
+            "More than {MAX_PHOTOS} photos in all ({lines} lines of {photos_per_line}): the total and the storage \
+             are withheld. Split the area or fly higher."
+        ),
+        SurveyNote::NoSpeed => "The ground speed is 0 or not usable: there is no trigger interval, flight time or \
+                                battery count. Give the planned ground speed."
+            .to_string(),
+        SurveyNote::FlightTimeUncountable => {
+            "The flight time is too long to count: check the ground speed.".to_string()
+        }
+        SurveyNote::NoEndurance => "No usable flight time per battery: the battery count is left out.".to_string(),
+        SurveyNote::FlightTimeCovers => "The flight time covers the lines and the turns between them; take-off, \
+                                         climb, transit to the area, battery changes and landing come on top."
+            .to_string(),
+    }
+}
+
+/// A caution as the report gives it.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct CautionWords {
+    /// `general`, `height` or `privacy`.
+    pub code: &'static str,
+    pub text: String,
+}
+
+/// The cautions in words.
+pub fn cautions(cautions: &[Caution]) -> Vec<CautionWords> {
+    cautions
+        .iter()
+        .map(|&c| CautionWords {
+            code: c.code(),
+            text: caution(c),
+        })
+        .collect()
+}
+
+/// A speed flag as the report gives it.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct SpeedFlagWords {
+    /// `blur` or `trigger`.
+    pub code: &'static str,
+    /// The largest ground speed that this limit allows, m/s.
+    pub limit_mps: f64,
+    /// Why the planned speed is a problem.
+    pub reason: String,
+    /// What a person can change.
+    pub change: String,
+}
+
+/// The overlap guidance as the report gives it.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct OverlapWords {
+    /// `low`, `light`, `mapping`, `3d` or `heavy`.
+    pub code: &'static str,
+    pub text: String,
+}
+
+/// The survey's flags, guidance and notes in words, with the report's field names.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct SurveyWords {
+    pub speed_flags: Vec<SpeedFlagWords>,
+    pub overlap_guidance: OverlapWords,
+    /// Named `survey_notes` rather than `notes` because the report flattens it into its own fields.
+    pub survey_notes: Vec<String>,
+}
+
+/// Everything the survey says, in words and in `units`.
+pub fn survey_words(plan: &SurveyPlan, units: Units) -> SurveyWords {
+    SurveyWords {
+        speed_flags: plan
+            .speed_flags
+            .iter()
+            .map(|f| SpeedFlagWords {
+                code: f.code(),
+                limit_mps: f.limit_mps(),
+                reason: speed_flag_reason(f, units),
+                change: speed_flag_change(f, units),
+            })
+            .collect(),
+        overlap_guidance: OverlapWords {
+            code: plan.overlap.class.code(),
+            text: overlap(&plan.overlap),
+        },
+        survey_notes: plan.notes.iter().map(|n| survey_note(n, units)).collect(),
+    }
+}
