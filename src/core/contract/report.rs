@@ -107,8 +107,6 @@ impl Report {
             airborne: sweep.axis == Axis::Height,
             identifies_people,
         });
-        // Words are in metric for now, whatever the display units (as before the words layer).
-        let words_units = crate::core::words::units::Units::Metric;
         Report {
             v: CONTRACT_VERSION,
             name: scenario.name.clone(),
@@ -149,7 +147,7 @@ impl Report {
             identifies_people,
             cautions: notes::cautions(&cautions),
             survey: survey.clone(),
-            survey_words: notes::survey_words(survey, words_units),
+            survey_words: notes::survey_words(survey, scenario.units),
             errors,
             ignored: scenario.ignored_keys(),
         }

@@ -188,8 +188,7 @@ pub fn overlap(advice: &OverlapAdvice) -> String {
 
 /// A survey note in plain words, lengths in `units`.
 pub fn survey_note(note: &SurveyNote, units: Units) -> String {
-    let _ = units;
-    let len = |m: f64| format!("{} m", significant(m));
+    let len = |m: f64| length(m, units);
     match *note {
         SurveyNote::AssumesStraightDown => "The footprint, spacing and counts assume a camera looking straight \
                                             down; the tilt or ground distance is ignored for them (the blur \
