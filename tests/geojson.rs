@@ -11,6 +11,7 @@ use sharpfield::core::contract::scenario::Scenario;
 use sharpfield::core::formats::geojson::{
     make_counter_clockwise, signed_area_deg2, survey_geojson, survey_geojson_checked, ExportProblem,
 };
+use sharpfield::core::planning::survey::SurveySettings;
 use sharpfield::core::presets::demo::pasture_survey;
 
 fn export(scenario: &Scenario) -> Value {
@@ -21,11 +22,14 @@ fn export(scenario: &Scenario) -> Value {
 /// The demo camera over an area of `width` × `length` m whose first corner is at `lat`, `lon`.
 fn field_at(lat: f64, lon: f64, heading: f64, width: f64, length: f64) -> Scenario {
     Scenario {
-        latitude_deg: Some(lat),
-        longitude_deg: Some(lon),
-        heading_deg: heading,
-        area_width_m: Some(width),
-        area_length_m: Some(length),
+        survey: SurveySettings {
+            latitude_deg: Some(lat),
+            longitude_deg: Some(lon),
+            heading_deg: heading,
+            area_width_m: Some(width),
+            area_length_m: Some(length),
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     }
 }
@@ -114,8 +118,8 @@ fn demo_export_is_a_feature_collection_in_lon_lat_order() {
     assert_eq!(v["type"], "FeatureCollection");
     let ring = area_ring(&v);
     // The first corner is the origin, longitude first.
-    close(ring[0][0], s.longitude_deg.unwrap(), 1e-12);
-    close(ring[0][1], s.latitude_deg.unwrap(), 1e-12);
+    close(ring[0][0], s.survey.longitude_deg.unwrap(), 1e-12);
+    close(ring[0][1], s.survey.latitude_deg.unwrap(), 1e-12);
     // Closed (RFC 7946 §3.1.6: first and last positions equivalent), four corners.
     assert_eq!(ring.len(), 5);
     assert_eq!(ring[0], ring[4]);
@@ -201,42 +205,60 @@ fn missing_origin_or_area_gives_none_with_a_reason() {
     let cases = [
         (
             Scenario {
-                latitude_deg: None,
+                survey: SurveySettings {
+                    latitude_deg: None,
+                    ..pasture_survey().survey
+                },
                 ..pasture_survey()
             },
             ExportProblem::NoOrigin,
         ),
         (
             Scenario {
-                longitude_deg: None,
+                survey: SurveySettings {
+                    longitude_deg: None,
+                    ..pasture_survey().survey
+                },
                 ..pasture_survey()
             },
             ExportProblem::NoOrigin,
         ),
         (
             Scenario {
-                latitude_deg: Some(f64::NAN),
+                survey: SurveySettings {
+                    latitude_deg: Some(f64::NAN),
+                    ..pasture_survey().survey
+                },
                 ..pasture_survey()
             },
             ExportProblem::NoOrigin,
         ),
         (
             Scenario {
-                area_width_m: None,
+                survey: SurveySettings {
+                    area_width_m: None,
+                    ..pasture_survey().survey
+                },
                 ..pasture_survey()
             },
             ExportProblem::NoArea,
         ),
         (
             Scenario {
-                area_length_m: None,
+                survey: SurveySettings {
+                    area_length_m: None,
+                    ..pasture_survey().survey
+                },
                 ..pasture_survey()
             },
             ExportProblem::NoArea,
         ),
         (
             Scenario {
-                area_length_m: Some(-5.0),
+                survey: SurveySettings {
+                    area_length_m: Some(-5.0),
+                    ..pasture_survey().survey
+                },
                 ..pasture_survey()
             },
             ExportProblem::NoArea,
@@ -254,9 +276,12 @@ fn missing_origin_or_area_gives_none_with_a_reason() {
 fn areas_the_export_cannot_draw_are_refused() {
     // Across the 180° meridian (RFC 7946 §3.1.9 asks for such shapes to be cut).
     let s = Scenario {
-        latitude_deg: Some(-17.0),
-        longitude_deg: Some(179.9999),
-        heading_deg: 0.0,
+        survey: SurveySettings {
+            latitude_deg: Some(-17.0),
+            longitude_deg: Some(179.9999),
+            heading_deg: 0.0,
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     };
     assert_eq!(
@@ -265,8 +290,11 @@ fn areas_the_export_cannot_draw_are_refused() {
     );
     // Westward from just east of it.
     let s = Scenario {
-        longitude_deg: Some(-179.9999),
-        heading_deg: 180.0,
+        survey: SurveySettings {
+            longitude_deg: Some(-179.9999),
+            heading_deg: 180.0,
+            ..s.survey
+        },
         ..s
     };
     assert_eq!(
@@ -275,9 +303,12 @@ fn areas_the_export_cannot_draw_are_refused() {
     );
     // A 100 km square at 89° N reaches the pole, 111 km away.
     let s = Scenario {
-        latitude_deg: Some(89.0),
-        area_width_m: Some(100_000.0),
-        area_length_m: Some(100_000.0),
+        survey: SurveySettings {
+            latitude_deg: Some(89.0),
+            area_width_m: Some(100_000.0),
+            area_length_m: Some(100_000.0),
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     };
     assert_eq!(
@@ -286,7 +317,10 @@ fn areas_the_export_cannot_draw_are_refused() {
     );
     // The same field at 89° N is fine.
     let s = Scenario {
-        latitude_deg: Some(89.0),
+        survey: SurveySettings {
+            latitude_deg: Some(89.0),
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     };
     assert!(survey_geojson(&inputs(&s), &plan(&s), &s.name).is_some());

@@ -8,6 +8,7 @@ use serde_json::Value;
 use sharpfield::core::contract::inputs::{input, Input, INPUTS, NAME_MAX_CHARS};
 use sharpfield::core::contract::report::{report_for_query, report_json};
 use sharpfield::core::contract::scenario::{AirModel, Offset, RawScenario, Scenario};
+use sharpfield::core::planning::survey::SurveySettings;
 use sharpfield::core::words::units::Units;
 
 /// Every key of the contract, in the table's order.
@@ -158,7 +159,7 @@ fn check_report(query: &str) -> Result<(), String> {
             report["r0_m"], scenario.air
         ));
     }
-    if scenario.area_width_m.is_some() && scenario.area_length_m.is_some() {
+    if scenario.survey.area_width_m.is_some() && scenario.survey.area_length_m.is_some() {
         for field in ["footprint_across_m", "footprint_along_m"] {
             if !is_finite_number(&report[field]) {
                 return Err(format!("{field} is {} for {query:?}", report[field]));
@@ -425,20 +426,22 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
             cn2_exponent: cexp,
             speed_mps: speed,
             shutter_s: shutter,
-            area_width_m: aw,
-            area_length_m: al,
-            front_overlap_pct: fo,
-            side_overlap_pct: so,
             need_m: need,
             target_m: tdim,
-            trigger_s: trig,
-            endurance_min: endur,
-            turn_s: turn,
-            photo_mb: mb,
-            blur_budget_px: blur,
-            latitude_deg: lat,
-            longitude_deg: lon,
-            heading_deg: hdg,
+            survey: SurveySettings {
+                area_width_m: aw,
+                area_length_m: al,
+                front_overlap_pct: fo,
+                side_overlap_pct: so,
+                trigger_s: trig,
+                endurance_min: endur,
+                turn_s: turn,
+                photo_mb: mb,
+                blur_budget_px: blur,
+                latitude_deg: lat,
+                longitude_deg: lon,
+                heading_deg: hdg,
+            },
             units,
             extra,
         },

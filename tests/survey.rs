@@ -8,6 +8,7 @@ use common::{close, inputs, plan, words};
 use proptest::prelude::*;
 use sharpfield::core::contract::report::report_json;
 use sharpfield::core::contract::scenario::{Offset, Scenario};
+use sharpfield::core::planning::survey::SurveySettings;
 use sharpfield::core::planning::survey::{
     layout, overlap_guidance, SurveyPlan, MAX_DRAWN_LINES, MAX_LINES, MAX_PHOTOS,
 };
@@ -38,10 +39,13 @@ fn nptel_example_1() -> Scenario {
         height_m: 12_000.0 * 0.21,
         offset: Offset::GroundDistance(0.0),
         speed_mps: 200.0 / 3.6,
-        area_width_m: Some(36_000.0),
-        area_length_m: Some(45_000.0),
-        front_overlap_pct: 60.0,
-        side_overlap_pct: 30.0,
+        survey: SurveySettings {
+            area_width_m: Some(36_000.0),
+            area_length_m: Some(45_000.0),
+            front_overlap_pct: 60.0,
+            side_overlap_pct: 30.0,
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     }
 }
@@ -66,8 +70,11 @@ fn nptel_example_1_width_is_across_the_lines() {
     // Source: NPTEL 105104100, Example 1. Only the 36 km side across the lines gives the stated
     // 20 lines: with the 45 km side across, ceil(45000/1932) + 1 would be 25.
     let swapped = Scenario {
-        area_width_m: Some(45_000.0),
-        area_length_m: Some(36_000.0),
+        survey: SurveySettings {
+            area_width_m: Some(45_000.0),
+            area_length_m: Some(36_000.0),
+            ..nptel_example_1().survey
+        },
         ..nptel_example_1()
     };
     assert_eq!(plan(&swapped).lines, Some(25));
@@ -91,7 +98,10 @@ fn nptel_example_1_photos_as_the_example_counts_them() {
     // The front overlap that gives that base with a 2760 m footprint.
     let front_overlap_pct = 100.0 * (1.0 - adjusted_base / first.footprint_along_m);
     let adjusted = plan(&Scenario {
-        front_overlap_pct,
+        survey: SurveySettings {
+            front_overlap_pct,
+            ..nptel_example_1().survey
+        },
         ..nptel_example_1()
     });
     close(adjusted.base_m, 1055.45, 1e-9);
@@ -140,7 +150,10 @@ fn demo_field_by_hand() {
 fn batteries_round_up() {
     // ceil(flight time / endurance): 977.5 s with 5-minute (300 s) batteries needs 4.
     let p = plan(&Scenario {
-        endurance_min: 5.0,
+        survey: SurveySettings {
+            endurance_min: 5.0,
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     });
     assert_eq!(p.batteries, Some(4));
@@ -151,8 +164,11 @@ fn an_exact_multiple_does_not_gain_a_station_from_rounding() {
     // With 90 % front overlap, 1 − 0.9 is 0.09999999999999998 in floating point, so B comes out a
     // hair under 8 m and 80/B a hair over 10. The count must still be 80/8 + 1 = 11.
     let p = plan(&Scenario {
-        front_overlap_pct: 90.0,
-        area_length_m: Some(80.0),
+        survey: SurveySettings {
+            front_overlap_pct: 90.0,
+            area_length_m: Some(80.0),
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     });
     assert!(80.0 / p.base_m > 10.0, "the rounding this test is about did not occur");
@@ -180,8 +196,11 @@ fn speed_flags_name_the_limit_and_the_change() {
 #[test]
 fn a_camera_without_a_minimum_interval_sets_no_trigger_limit() {
     let p = plan(&Scenario {
-        trigger_s: 0.0,
         speed_mps: 20.0,
+        survey: SurveySettings {
+            trigger_s: 0.0,
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     });
     assert_eq!(p.max_speed_trigger_mps, None);
@@ -205,8 +224,11 @@ fn speed_zero_leaves_time_out_with_a_note() {
 #[test]
 fn missing_area_gives_no_counts_and_says_so() {
     let p = plan(&Scenario {
-        area_width_m: None,
-        area_length_m: None,
+        survey: SurveySettings {
+            area_width_m: None,
+            area_length_m: None,
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     });
     assert_eq!((p.lines, p.photos_per_line, p.photos), (None, None, None));
@@ -219,7 +241,10 @@ fn missing_area_gives_no_counts_and_says_so() {
     close(p.base_m, 20.0, 1e-9);
 
     let p = plan(&Scenario {
-        area_length_m: None,
+        survey: SurveySettings {
+            area_length_m: None,
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     });
     assert_eq!(p.lines, Some(11));
@@ -273,10 +298,13 @@ fn absurd_counts_are_withheld_with_a_note() {
         sensor_height_mm: 4.55,
         focal_mm: 5000.0,
         height_m: 0.1,
-        area_width_m: Some(100_000.0),
-        area_length_m: Some(100_000.0),
-        front_overlap_pct: 95.0,
-        side_overlap_pct: 95.0,
+        survey: SurveySettings {
+            area_width_m: Some(100_000.0),
+            area_length_m: Some(100_000.0),
+            front_overlap_pct: 95.0,
+            side_overlap_pct: 95.0,
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     };
     let p = plan(&s);
@@ -287,9 +315,12 @@ fn absurd_counts_are_withheld_with_a_note() {
 
     // Lines and photos per line within their caps, the total above.
     let s = Scenario {
-        area_width_m: Some(100_000.0),
-        area_length_m: Some(100_000.0),
         height_m: 10.0,
+        survey: SurveySettings {
+            area_width_m: Some(100_000.0),
+            area_length_m: Some(100_000.0),
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     };
     let p = plan(&s);
@@ -367,7 +398,10 @@ fn layout_of_the_demo_field() {
 #[test]
 fn layout_draws_at_most_sixty_lines() {
     let s = Scenario {
-        area_width_m: Some(10_000.0),
+        survey: SurveySettings {
+            area_width_m: Some(10_000.0),
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     };
     let p = plan(&s);
@@ -381,15 +415,21 @@ fn layout_draws_at_most_sixty_lines() {
 #[test]
 fn small_areas_keep_the_plus_one_convention() {
     let s = Scenario {
-        area_width_m: Some(1.0),
-        area_length_m: Some(1.0),
+        survey: SurveySettings {
+            area_width_m: Some(1.0),
+            area_length_m: Some(1.0),
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     };
     let p = plan(&s);
     assert_eq!((p.lines, p.photos_per_line), (Some(2), Some(2)));
     let s = Scenario {
-        area_width_m: Some(0.0),
-        area_length_m: Some(0.0),
+        survey: SurveySettings {
+            area_width_m: Some(0.0),
+            area_length_m: Some(0.0),
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     };
     let p = plan(&s);
@@ -457,51 +497,84 @@ fn extreme_inputs_stay_finite() {
             ..base.clone()
         });
         check_sane(&Scenario {
-            trigger_s: v,
+            survey: SurveySettings {
+                trigger_s: v,
+                ..base.clone().survey
+            },
             ..base.clone()
         });
         check_sane(&Scenario {
-            endurance_min: v,
+            survey: SurveySettings {
+                endurance_min: v,
+                ..base.clone().survey
+            },
             ..base.clone()
         });
         check_sane(&Scenario {
-            turn_s: v,
+            survey: SurveySettings {
+                turn_s: v,
+                ..base.clone().survey
+            },
             ..base.clone()
         });
         check_sane(&Scenario {
-            photo_mb: v,
+            survey: SurveySettings {
+                photo_mb: v,
+                ..base.clone().survey
+            },
             ..base.clone()
         });
         check_sane(&Scenario {
-            blur_budget_px: v,
+            survey: SurveySettings {
+                blur_budget_px: v,
+                ..base.clone().survey
+            },
             ..base.clone()
         });
         check_sane(&Scenario {
-            front_overlap_pct: v,
+            survey: SurveySettings {
+                front_overlap_pct: v,
+                ..base.clone().survey
+            },
             ..base.clone()
         });
         check_sane(&Scenario {
-            side_overlap_pct: v,
+            survey: SurveySettings {
+                side_overlap_pct: v,
+                ..base.clone().survey
+            },
             ..base.clone()
         });
         check_sane(&Scenario {
-            area_width_m: Some(v),
+            survey: SurveySettings {
+                area_width_m: Some(v),
+                ..base.clone().survey
+            },
             ..base.clone()
         });
         check_sane(&Scenario {
-            area_length_m: Some(v),
+            survey: SurveySettings {
+                area_length_m: Some(v),
+                ..base.clone().survey
+            },
             ..base.clone()
         });
     }
     for pct in [95.0, 99.999, 100.0, 150.0] {
         check_sane(&Scenario {
-            front_overlap_pct: pct,
-            side_overlap_pct: pct,
+            survey: SurveySettings {
+                front_overlap_pct: pct,
+                side_overlap_pct: pct,
+                ..base.clone().survey
+            },
             ..base.clone()
         });
     }
     let p = plan(&Scenario {
-        front_overlap_pct: 100.0,
+        survey: SurveySettings {
+            front_overlap_pct: 100.0,
+            ..base.clone().survey
+        },
         ..base.clone()
     });
     assert_eq!(p.photos_per_line, None);
@@ -536,15 +609,18 @@ proptest! {
             height_m: h,
             speed_mps: speed,
             shutter_s: shutter,
-            area_width_m: Some(aw),
-            area_length_m: Some(al),
-            front_overlap_pct: fo,
-            side_overlap_pct: so,
-            trigger_s: trig,
-            endurance_min: endur,
-            turn_s: turn,
-            photo_mb: mb,
-            blur_budget_px: blur,
+            survey: SurveySettings {
+                area_width_m: Some(aw),
+                area_length_m: Some(al),
+                front_overlap_pct: fo,
+                side_overlap_pct: so,
+                trigger_s: trig,
+                endurance_min: endur,
+                turn_s: turn,
+                photo_mb: mb,
+                blur_budget_px: blur,
+                ..pasture_survey().survey
+            },
             ..pasture_survey()
         });
     }

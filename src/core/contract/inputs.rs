@@ -6,7 +6,7 @@
 //! Parsing, writing, the field errors, the page's labels and [`inputs_of`] are loops over
 //! [`INPUTS`]; adding an input is one entry here plus its use.
 
-use crate::core::contract::scenario::{AirModel, Offset, Scenario};
+use crate::core::contract::scenario::{AirModel, Offset, RawScenario, Scenario, CONTRACT_VERSION};
 use crate::core::words::format::format_number;
 use crate::core::words::units::{EntryUnit, Units, FEET, INCHES, MPH};
 
@@ -109,11 +109,7 @@ const fn number(
             fraction: false,
             slot,
         },
-        required: false,
-        imperial: None,
-        conflict: None,
-        feeds: Feeds::Nothing,
-        plural: false,
+        ..INPUTS_BASE
     }
 }
 
@@ -169,20 +165,20 @@ impl Input {
 
 /// A slot for a plain `f64` field.
 macro_rules! plain {
-    ($field:ident) => {
+    ($($field:ident).+) => {
         NumberSlot {
-            get: |s| Some(s.$field),
-            set: |s, v| s.$field = v,
+            get: |s| Some(s.$($field).+),
+            set: |s, v| s.$($field).+ = v,
         }
     };
 }
 
 /// A slot for an `Option<f64>` field (an optional key).
 macro_rules! optional {
-    ($field:ident) => {
+    ($($field:ident).+) => {
         NumberSlot {
-            get: |s| s.$field,
-            set: |s, v| s.$field = Some(v),
+            get: |s| s.$($field).+,
+            set: |s, v| s.$($field).+ = Some(v),
         }
     };
 }
@@ -219,13 +215,7 @@ pub const INPUTS: &[Input] = &[
     Input {
         key: "v",
         label: "Contract version",
-        unit: "",
-        kind: Kind::Version,
-        required: false,
-        imperial: None,
-        conflict: None,
-        feeds: Feeds::Nothing,
-        plural: false,
+        ..INPUTS_BASE
     },
     Input {
         key: "name",
@@ -344,7 +334,7 @@ pub const INPUTS: &[Input] = &[
         "Area width (across the lines)",
         "m",
         (1.0, 100_000.0),
-        optional!(area_width_m),
+        optional!(survey.area_width_m),
     )
     .imperial(FEET),
     number(
@@ -352,11 +342,11 @@ pub const INPUTS: &[Input] = &[
         "Area length (along the lines)",
         "m",
         (1.0, 100_000.0),
-        optional!(area_length_m),
+        optional!(survey.area_length_m),
     )
     .imperial(FEET),
-    number("fo", "Front overlap", "%", OVERLAP, plain!(front_overlap_pct)).or(75.0),
-    number("so", "Side overlap", "%", OVERLAP, plain!(side_overlap_pct)).or(65.0),
+    number("fo", "Front overlap", "%", OVERLAP, plain!(survey.front_overlap_pct)).or(75.0),
+    number("so", "Side overlap", "%", OVERLAP, plain!(survey.side_overlap_pct)).or(65.0),
     number(
         "need",
         "Required resolution on the ground",
@@ -378,7 +368,7 @@ pub const INPUTS: &[Input] = &[
         "Shortest interval between photos",
         "s",
         INTERVAL,
-        plain!(trigger_s),
+        plain!(survey.trigger_s),
     )
     .or(2.0),
     number(
@@ -386,17 +376,24 @@ pub const INPUTS: &[Input] = &[
         "Usable flight time per battery",
         "min",
         (1.0, 600.0),
-        plain!(endurance_min),
+        plain!(survey.endurance_min),
     )
     .or(25.0),
-    number("turn", "Time per turn between lines", "s", INTERVAL, plain!(turn_s)).or(10.0),
-    number("mb", "Size of one photo", "MB", (0.0, 2000.0), plain!(photo_mb)).or(10.0),
+    number(
+        "turn",
+        "Time per turn between lines",
+        "s",
+        INTERVAL,
+        plain!(survey.turn_s),
+    )
+    .or(10.0),
+    number("mb", "Size of one photo", "MB", (0.0, 2000.0), plain!(survey.photo_mb)).or(10.0),
     number(
         "blur",
         "Motion-blur budget",
         "pixels",
         (0.05, 10.0),
-        plain!(blur_budget_px),
+        plain!(survey.blur_budget_px),
     )
     .or(0.5),
     number(
@@ -404,21 +401,21 @@ pub const INPUTS: &[Input] = &[
         "Survey origin latitude",
         "degrees",
         (-89.0, 89.0),
-        optional!(latitude_deg),
+        optional!(survey.latitude_deg),
     ),
     number(
         "lon",
         "Survey origin longitude",
         "degrees",
         (-180.0, 180.0),
-        optional!(longitude_deg),
+        optional!(survey.longitude_deg),
     ),
     number(
         "hdg",
         "Flight-line heading",
         "degrees from north",
         (0.0, 360.0),
-        plain!(heading_deg),
+        plain!(survey.heading_deg),
     )
     .or(0.0),
     Input {
@@ -442,7 +439,7 @@ pub const NAME_MAX_CHARS: usize = 120;
 /// The words of the `units` key, in [`Units::ALL`] order.
 const UNIT_WORDS: [&str; 2] = [Units::Metric.key(), Units::Imperial.key()];
 
-/// What every entry shares unless it says otherwise (for the entries that are not numbers).
+/// What every entry shares unless it says otherwise.
 const INPUTS_BASE: Input = Input {
     key: "",
     label: "",
@@ -577,10 +574,76 @@ impl Input {
     /// The value's text in the link, or `None` when the scenario leaves the key out.
     pub fn write(&self, scenario: &Scenario) -> Option<String> {
         match self.kind {
-            Kind::Version => Some(crate::core::contract::scenario::CONTRACT_VERSION.to_string()),
+            Kind::Version => Some(CONTRACT_VERSION.to_string()),
             Kind::Text { get, .. } => Some(get(scenario).to_string()).filter(|t| !t.is_empty()),
             Kind::Number { slot, .. } => (slot.get)(scenario).map(format_number),
             Kind::Choice { words, get, .. } => words.get(get(scenario)).map(|w| w.to_string()),
+        }
+    }
+
+    /// Reads this key from `raw` into `scenario`, reporting each rejected value through `error`
+    /// (key, message); a rejected or missing value leaves the default in place.
+    pub(crate) fn read(&self, raw: &RawScenario, scenario: &mut Scenario, error: &mut impl FnMut(&str, String)) {
+        let input = self;
+        let text = raw.get(input.key);
+        let verb = if input.plural { "are" } else { "is" };
+        match (input.kind, text) {
+            (Kind::Version, Some(v)) if v.trim() != CONTRACT_VERSION.to_string() => error(
+                input.key,
+                format!(
+                    "{} '{}' {verb} not known: give {CONTRACT_VERSION}; read as version {CONTRACT_VERSION}.",
+                    input.label,
+                    clip(v, 12)
+                ),
+            ),
+            (Kind::Text { max_chars, set, .. }, Some(t)) => {
+                if t.chars().count() > max_chars {
+                    error(
+                        input.key,
+                        format!("{} is longer than {max_chars} characters; it was cut.", input.label),
+                    );
+                }
+                set(scenario, t.chars().take(max_chars).collect());
+            }
+            (
+                Kind::Choice {
+                    words, default, set, ..
+                },
+                Some(w),
+            ) => match words.iter().position(|x| *x == w.trim()) {
+                Some(i) => set(scenario, i),
+                None => error(
+                    input.key,
+                    format!(
+                        "{} '{}' {verb} not known: give {}; {} is used.",
+                        input.label,
+                        clip(w.trim(), 24),
+                        input.range_text(),
+                        words.get(default).copied().unwrap_or_default()
+                    ),
+                ),
+            },
+            (Kind::Number { default, .. }, None) if input.required => error(
+                input.key,
+                format!(
+                    "{} is missing: give {}; {} is used meanwhile.",
+                    input.label,
+                    input.range_text(),
+                    format_number(default.unwrap_or_default())
+                ),
+            ),
+            (Kind::Number { slot, .. }, Some(t)) => {
+                let value = input.parse(t).map_err(|message| error(input.key, message));
+                match input.conflict.filter(|c| raw.get(c.with).is_some()) {
+                    Some(conflict) => error(input.key, conflict.message.to_string()),
+                    None => {
+                        if let Ok(v) = value {
+                            (slot.set)(scenario, v);
+                        }
+                    }
+                }
+            }
+            _ => {}
         }
     }
 

@@ -8,12 +8,11 @@
 //! Both directions are loops over the table of inputs ([`crate::core::contract::inputs::INPUTS`]),
 //! which also holds the contract's defaults. [`Scenario::setup`] then converts to SI for the engine.
 
-use crate::core::contract::inputs::{clip, Kind, INPUTS};
+use crate::core::contract::inputs::INPUTS;
 use crate::core::physics::engine::Setup;
 use crate::core::physics::geometry::Geometry;
 use crate::core::physics::turbulence::Profile;
-use crate::core::planning::survey::SurveyInputs;
-use crate::core::words::format::format_number;
+use crate::core::planning::survey::{SurveyInputs, SurveySettings};
 use crate::core::words::units::Units;
 use serde::Serialize;
 
@@ -141,20 +140,10 @@ pub struct Scenario {
     pub cn2_exponent: f64,
     pub speed_mps: f64,
     pub shutter_s: f64,
-    pub area_width_m: Option<f64>,
-    pub area_length_m: Option<f64>,
-    pub front_overlap_pct: f64,
-    pub side_overlap_pct: f64,
     pub need_m: Option<f64>,
     pub target_m: Option<f64>,
-    pub trigger_s: f64,
-    pub endurance_min: f64,
-    pub turn_s: f64,
-    pub photo_mb: f64,
-    pub blur_budget_px: f64,
-    pub latitude_deg: Option<f64>,
-    pub longitude_deg: Option<f64>,
-    pub heading_deg: f64,
+    /// The survey keys.
+    pub survey: SurveySettings,
     pub units: Units,
     /// Keys this version does not know, kept so that a re-shared link loses nothing.
     pub extra: Vec<(String, String)>,
@@ -195,66 +184,7 @@ impl Scenario {
         }
 
         for input in INPUTS {
-            let text = raw.get(input.key);
-            let verb = if input.plural { "are" } else { "is" };
-            match (input.kind, text) {
-                (Kind::Version, Some(v)) if v.trim() != CONTRACT_VERSION.to_string() => error(
-                    input.key,
-                    format!(
-                        "{} '{}' {verb} not known: give {CONTRACT_VERSION}; read as version {CONTRACT_VERSION}.",
-                        input.label,
-                        clip(v, 12)
-                    ),
-                ),
-                (Kind::Text { max_chars, set, .. }, Some(t)) => {
-                    if t.chars().count() > max_chars {
-                        error(
-                            input.key,
-                            format!("{} is longer than {max_chars} characters; it was cut.", input.label),
-                        );
-                    }
-                    set(&mut scenario, t.chars().take(max_chars).collect());
-                }
-                (
-                    Kind::Choice {
-                        words, default, set, ..
-                    },
-                    Some(w),
-                ) => match words.iter().position(|x| *x == w.trim()) {
-                    Some(i) => set(&mut scenario, i),
-                    None => error(
-                        input.key,
-                        format!(
-                            "{} '{}' {verb} not known: give {}; {} is used.",
-                            input.label,
-                            clip(w.trim(), 24),
-                            input.range_text(),
-                            words.get(default).copied().unwrap_or_default()
-                        ),
-                    ),
-                },
-                (Kind::Number { default, .. }, None) if input.required => error(
-                    input.key,
-                    format!(
-                        "{} is missing: give {}; {} is used meanwhile.",
-                        input.label,
-                        input.range_text(),
-                        format_number(default.unwrap_or_default())
-                    ),
-                ),
-                (Kind::Number { slot, .. }, Some(t)) => {
-                    let value = input.parse(t).map_err(|message| error(input.key, message));
-                    match input.conflict.filter(|c| raw.get(c.with).is_some()) {
-                        Some(conflict) => error(input.key, conflict.message.to_string()),
-                        None => {
-                            if let Ok(v) = value {
-                                (slot.set)(&mut scenario, v);
-                            }
-                        }
-                    }
-                }
-                _ => {}
-            }
+            input.read(raw, &mut scenario, &mut error);
         }
         (scenario, errors)
     }
@@ -339,20 +269,9 @@ impl Scenario {
             height_m: self.height_m,
             looks_down,
             gsd_m,
-            front_overlap_pct: self.front_overlap_pct,
-            side_overlap_pct: self.side_overlap_pct,
-            area_width_m: self.area_width_m,
-            area_length_m: self.area_length_m,
             speed_mps: self.speed_mps,
             shutter_s: self.shutter_s,
-            trigger_s: self.trigger_s,
-            endurance_min: self.endurance_min,
-            turn_s: self.turn_s,
-            photo_mb: self.photo_mb,
-            blur_budget_px: self.blur_budget_px,
-            latitude_deg: self.latitude_deg,
-            longitude_deg: self.longitude_deg,
-            heading_deg: self.heading_deg,
+            settings: self.survey,
         }
     }
 

@@ -143,22 +143,82 @@ pub fn survey_geojson(inputs: &SurveyInputs, plan: &SurveyPlan, name: &str) -> O
     survey_geojson_checked(inputs, plan, name).ok()
 }
 
+/// Flight lines 1 to `count` as LineString features in flying order, each line's ends added to
+/// `positions` for the checks that follow.
+fn flight_lines(frame: &Frame, count: u64, spacing: f64, length: f64, positions: &mut Vec<[f64; 2]>) -> Vec<Value> {
+    let mut features = Vec::new();
+    for number in 1..=count {
+        let near = frame.across((number - 1) as f64 * spacing);
+        let far = frame.along(near, length);
+        let forward = flies_forward(number);
+        let (start, end, azimuth) = if forward {
+            (near, far, near.along_azimuth)
+        } else {
+            (far, near, far.along_azimuth + 180.0)
+        };
+        positions.push(start.position());
+        positions.push(end.position());
+        features.push(json!({
+            "type": "Feature",
+            "geometry": {
+                "type": "LineString",
+                "coordinates": [start.position(), end.position()],
+            },
+            "properties": {
+                "kind": "flight_line",
+                "line": number,
+                "direction": if forward { "forward" } else { "reverse" },
+                "azimuth_deg": wrap360(azimuth),
+            },
+        }));
+    }
+    features
+}
+
+/// The survey area's properties: its name (when it has one), size, heading and the plan's figures.
+fn area_properties(
+    name: &str,
+    width: f64,
+    length: f64,
+    heading: f64,
+    plan: &SurveyPlan,
+    lines_total: Option<u64>,
+    lines_exported: u64,
+) -> Map<String, Value> {
+    let mut properties = Map::new();
+    properties.insert("kind".into(), json!("survey_area"));
+    if !name.is_empty() {
+        properties.insert("name".into(), json!(name));
+    }
+    properties.insert("width_m".into(), json!(width));
+    properties.insert("length_m".into(), json!(length));
+    properties.insert("heading_deg".into(), json!(heading));
+    properties.insert("line_spacing_m".into(), json!(plan.line_spacing_m));
+    properties.insert("base_m".into(), json!(plan.base_m));
+    properties.insert("lines".into(), json!(lines_total));
+    properties.insert("lines_exported".into(), json!(lines_exported));
+    properties
+}
+
 /// The survey as a GeoJSON FeatureCollection (RFC 7946): the area polygon (one counter-clockwise
 /// outer ring) and each flight line as a LineString in flying order, with the line number and
 /// direction as properties. Lines are left out when the plan has no line count.
 pub fn survey_geojson_checked(inputs: &SurveyInputs, plan: &SurveyPlan, name: &str) -> Result<String, ExportProblem> {
-    let lat0 = inputs.latitude_deg.filter(|v| v.is_finite() && v.abs() < 90.0);
-    let lon0 = inputs.longitude_deg.filter(|v| v.is_finite());
+    let lat0 = inputs.settings.latitude_deg.filter(|v| v.is_finite() && v.abs() < 90.0);
+    let lon0 = inputs.settings.longitude_deg.filter(|v| v.is_finite());
     let (Some(lat0), Some(lon0)) = (lat0, lon0) else {
         return Err(ExportProblem::NoOrigin);
     };
     let lon0 = wrap180(lon0);
     let usable = |v: Option<f64>| v.filter(|x| x.is_finite() && *x > 0.0);
-    let (Some(width), Some(length)) = (usable(inputs.area_width_m), usable(inputs.area_length_m)) else {
+    let (Some(width), Some(length)) = (
+        usable(inputs.settings.area_width_m),
+        usable(inputs.settings.area_length_m),
+    ) else {
         return Err(ExportProblem::NoArea);
     };
-    let heading = if inputs.heading_deg.is_finite() {
-        wrap360(inputs.heading_deg)
+    let heading = if inputs.settings.heading_deg.is_finite() {
+        wrap360(inputs.settings.heading_deg)
     } else {
         0.0
     };
@@ -192,32 +252,7 @@ pub fn survey_geojson_checked(inputs: &SurveyInputs, plan: &SurveyPlan, name: &s
 
     let mut features: Vec<Value> = Vec::new();
     let mut positions: Vec<[f64; 2]> = ring.clone();
-    let mut line_features: Vec<Value> = Vec::new();
-    for number in 1..=lines_exported {
-        let near = frame.across((number - 1) as f64 * spacing);
-        let far = frame.along(near, length);
-        let forward = flies_forward(number);
-        let (start, end, azimuth) = if forward {
-            (near, far, near.along_azimuth)
-        } else {
-            (far, near, far.along_azimuth + 180.0)
-        };
-        positions.push(start.position());
-        positions.push(end.position());
-        line_features.push(json!({
-            "type": "Feature",
-            "geometry": {
-                "type": "LineString",
-                "coordinates": [start.position(), end.position()],
-            },
-            "properties": {
-                "kind": "flight_line",
-                "line": number,
-                "direction": if forward { "forward" } else { "reverse" },
-                "azimuth_deg": wrap360(azimuth),
-            },
-        }));
-    }
+    let line_features = flight_lines(&frame, lines_exported, spacing, length, &mut positions);
 
     if positions.iter().flatten().any(|v| !v.is_finite()) {
         return Err(ExportProblem::NotFinite);
@@ -226,18 +261,7 @@ pub fn survey_geojson_checked(inputs: &SurveyInputs, plan: &SurveyPlan, name: &s
         return Err(ExportProblem::CrossesAntimeridian);
     }
 
-    let mut area_properties = Map::new();
-    area_properties.insert("kind".into(), json!("survey_area"));
-    if !name.is_empty() {
-        area_properties.insert("name".into(), json!(name));
-    }
-    area_properties.insert("width_m".into(), json!(width));
-    area_properties.insert("length_m".into(), json!(length));
-    area_properties.insert("heading_deg".into(), json!(heading));
-    area_properties.insert("line_spacing_m".into(), json!(spacing));
-    area_properties.insert("base_m".into(), json!(plan.base_m));
-    area_properties.insert("lines".into(), json!(lines_total));
-    area_properties.insert("lines_exported".into(), json!(lines_exported));
+    let area_properties = area_properties(name, width, length, heading, plan, lines_total, lines_exported);
     features.push(json!({
         "type": "Feature",
         "geometry": {

@@ -23,7 +23,28 @@ pub const MAX_DRAWN_LINES: u64 = 60;
 /// How many photos of line 1 the diagram outlines, so that the front overlap shows.
 pub const DRAWN_PHOTOS_LINE_1: u64 = 3;
 
-/// What the survey needs, in the contract's units (mm for the sensor and lens, % for overlaps).
+/// The survey's own settings: the contract's survey keys, in its units (%, m, s, min, MB,
+/// pixels, degrees). The scenario holds them as they are.
+#[derive(Clone, Copy, Debug, Default, PartialEq)]
+pub struct SurveySettings {
+    pub front_overlap_pct: f64,
+    pub side_overlap_pct: f64,
+    /// Width across the lines and length along them.
+    pub area_width_m: Option<f64>,
+    pub area_length_m: Option<f64>,
+    /// The camera's shortest interval between photos.
+    pub trigger_s: f64,
+    pub endurance_min: f64,
+    pub turn_s: f64,
+    pub photo_mb: f64,
+    pub blur_budget_px: f64,
+    /// The area's first corner (WGS 84) and the heading of the lines, for the map export.
+    pub latitude_deg: Option<f64>,
+    pub longitude_deg: Option<f64>,
+    pub heading_deg: f64,
+}
+
+/// What the survey needs: its settings, and what it takes from the camera, the lens and the view.
 #[derive(Clone, Copy, Debug, Default, PartialEq)]
 pub struct SurveyInputs {
     pub sensor_width_mm: f64,
@@ -35,23 +56,9 @@ pub struct SurveyInputs {
     pub looks_down: bool,
     /// The GSD at the target, for the blur limit.
     pub gsd_m: f64,
-    pub front_overlap_pct: f64,
-    pub side_overlap_pct: f64,
-    /// Width across the lines and length along them.
-    pub area_width_m: Option<f64>,
-    pub area_length_m: Option<f64>,
     pub speed_mps: f64,
     pub shutter_s: f64,
-    /// The camera's shortest interval between photos.
-    pub trigger_s: f64,
-    pub endurance_min: f64,
-    pub turn_s: f64,
-    pub photo_mb: f64,
-    pub blur_budget_px: f64,
-    /// The area's first corner (WGS 84) and the heading of the lines, for the map export.
-    pub latitude_deg: Option<f64>,
-    pub longitude_deg: Option<f64>,
-    pub heading_deg: f64,
+    pub settings: SurveySettings,
 }
 
 /// Which overlap a note is about.
@@ -298,8 +305,8 @@ fn spacing(inputs: &SurveyInputs, notes: &mut Vec<SurveyNote>) -> Spacing {
     if across_m <= 0.0 || along_m <= 0.0 {
         notes.push(SurveyNote::NoFootprint);
     }
-    let front = overlap_fraction(inputs.front_overlap_pct, OverlapSide::Front, notes);
-    let side = overlap_fraction(inputs.side_overlap_pct, OverlapSide::Side, notes);
+    let front = overlap_fraction(inputs.settings.front_overlap_pct, OverlapSide::Front, notes);
+    let side = overlap_fraction(inputs.settings.side_overlap_pct, OverlapSide::Side, notes);
     Spacing {
         across_m,
         along_m,
@@ -310,7 +317,7 @@ fn spacing(inputs: &SurveyInputs, notes: &mut Vec<SurveyNote>) -> Spacing {
 
 /// The area's sides when usable, with notes on what is missing or unusable.
 fn area(inputs: &SurveyInputs, notes: &mut Vec<SurveyNote>) -> (Option<f64>, Option<f64>) {
-    match (inputs.area_width_m, inputs.area_length_m) {
+    match (inputs.settings.area_width_m, inputs.settings.area_length_m) {
         (None, None) => notes.push(SurveyNote::NoArea),
         (None, Some(_)) => notes.push(SurveyNote::AreaSideMissing { side: AreaSide::Width }),
         (Some(_), None) => notes.push(SurveyNote::AreaSideMissing { side: AreaSide::Length }),
@@ -325,8 +332,8 @@ fn area(inputs: &SurveyInputs, notes: &mut Vec<SurveyNote>) -> (Option<f64>, Opt
         None => None,
     };
     (
-        usable(inputs.area_width_m, AreaSide::Width),
-        usable(inputs.area_length_m, AreaSide::Length),
+        usable(inputs.settings.area_width_m, AreaSide::Width),
+        usable(inputs.settings.area_length_m, AreaSide::Length),
     )
 }
 
@@ -387,8 +394,8 @@ fn timing(
     if speed.is_none() {
         notes.push(SurveyNote::NoSpeed);
     }
-    let turn_s = if inputs.turn_s.is_finite() {
-        inputs.turn_s.max(0.0)
+    let turn_s = if inputs.settings.turn_s.is_finite() {
+        inputs.settings.turn_s.max(0.0)
     } else {
         0.0
     };
@@ -404,7 +411,7 @@ fn timing(
         }
         _ => None,
     };
-    let endurance_s = positive(inputs.endurance_min * 60.0);
+    let endurance_s = positive(inputs.settings.endurance_min * 60.0);
     let batteries = match (flight_time_s, endurance_s) {
         // The bound only guards the conversion to an integer; the line cap keeps real counts far
         // below it.
@@ -428,9 +435,9 @@ fn timing(
 /// Blur: smear = speed × exposure within the budget (resolution-model §4). Trigger: a photo every
 /// B metres cannot come faster than the camera's shortest interval.
 fn speed_limits(inputs: &SurveyInputs, base_m: f64, due_s: Option<f64>) -> (Option<f64>, Option<f64>, Vec<SpeedFlag>) {
-    let budget_m = inputs.blur_budget_px * inputs.gsd_m;
+    let budget_m = inputs.settings.blur_budget_px * inputs.gsd_m;
     let max_blur = positive(budget_m).and_then(|b| ratio(b, inputs.shutter_s));
-    let max_trigger = positive(base_m).and_then(|b| ratio(b, inputs.trigger_s));
+    let max_trigger = positive(base_m).and_then(|b| ratio(b, inputs.settings.trigger_s));
     let mut flags = Vec::new();
     // A speed a hair above its limit through rounding is at the limit, not above it.
     let exceeds = |v: f64, limit: f64| v > limit * (1.0 + 1e-9);
@@ -439,7 +446,7 @@ fn speed_limits(inputs: &SurveyInputs, base_m: f64, due_s: Option<f64>) -> (Opti
             flags.push(SpeedFlag::Blur {
                 speed_mps,
                 limit_mps,
-                budget_px: inputs.blur_budget_px,
+                budget_px: inputs.settings.blur_budget_px,
                 exposure_s: inputs.shutter_s,
             });
         }
@@ -448,7 +455,7 @@ fn speed_limits(inputs: &SurveyInputs, base_m: f64, due_s: Option<f64>) -> (Opti
                 speed_mps,
                 limit_mps,
                 due_s,
-                camera_interval_s: inputs.trigger_s,
+                camera_interval_s: inputs.settings.trigger_s,
             });
         }
     }
@@ -474,8 +481,8 @@ pub fn plan_survey(inputs: &SurveyInputs) -> SurveyPlan {
     };
     let (flight_time_s, batteries) = timing(inputs, path_length_m, lines, &mut notes);
     let storage_mb = match photos {
-        Some(p) if inputs.photo_mb.is_finite() && inputs.photo_mb >= 0.0 => {
-            Some(p as f64 * inputs.photo_mb).filter(|s| s.is_finite())
+        Some(p) if inputs.settings.photo_mb.is_finite() && inputs.settings.photo_mb >= 0.0 => {
+            Some(p as f64 * inputs.settings.photo_mb).filter(|s| s.is_finite())
         }
         _ => None,
     };
@@ -496,7 +503,7 @@ pub fn plan_survey(inputs: &SurveyInputs) -> SurveyPlan {
         max_speed_blur_mps,
         max_speed_trigger_mps,
         speed_flags,
-        overlap: overlap_guidance(inputs.front_overlap_pct, inputs.side_overlap_pct),
+        overlap: overlap_guidance(inputs.settings.front_overlap_pct, inputs.settings.side_overlap_pct),
         notes,
     }
 }
@@ -631,8 +638,8 @@ pub struct Layout {
 /// implies. Every line spans y = 0 to the area length, as the path length counts it; photos are
 /// taken at y = 0, B, 2B, … on every line, so neighbouring lines' photos sit side by side.
 pub fn layout(plan: &SurveyPlan, inputs: &SurveyInputs) -> Option<Layout> {
-    let width = inputs.area_width_m.filter(|w| w.is_finite() && *w >= 0.0)?;
-    let length = inputs.area_length_m.filter(|l| l.is_finite() && *l >= 0.0)?;
+    let width = inputs.settings.area_width_m.filter(|w| w.is_finite() && *w >= 0.0)?;
+    let length = inputs.settings.area_length_m.filter(|l| l.is_finite() && *l >= 0.0)?;
     let lines_total = plan.lines?;
     let photos_per_line = plan.photos_per_line?;
     let spacing = positive(plan.line_spacing_m)?;

@@ -4,6 +4,7 @@
 //! how a link without a key reads.
 
 use crate::core::contract::scenario::{AirModel, Offset, Scenario};
+use crate::core::planning::survey::SurveySettings;
 
 /// Invented: a pasture survey over "Hollow Creek" farm with a 1-type camera drone (the contract's
 /// default camera, lens and height).
@@ -14,12 +15,15 @@ pub fn pasture_survey() -> Scenario {
         cn2_at_1m: 1e-13,
         cn2_exponent: -1.333,
         speed_mps: 8.0,
-        area_width_m: Some(400.0),
-        area_length_m: Some(600.0),
         need_m: Some(0.03),
         target_m: Some(0.75),
-        latitude_deg: Some(-36.8512),
-        longitude_deg: Some(146.2934),
+        survey: SurveySettings {
+            area_width_m: Some(400.0),
+            area_length_m: Some(600.0),
+            latitude_deg: Some(-36.8512),
+            longitude_deg: Some(146.2934),
+            ..Scenario::contract_defaults().survey
+        },
         ..Scenario::contract_defaults()
     }
 }
@@ -37,9 +41,12 @@ pub fn fence_mast() -> Scenario {
         offset: Offset::GroundDistance(1500.0),
         speed_mps: 0.0,
         shutter_s: 0.002,
-        area_width_m: None,
-        area_length_m: None,
         need_m: Some(0.1),
+        survey: SurveySettings {
+            area_width_m: None,
+            area_length_m: None,
+            ..pasture_survey().survey
+        },
         ..pasture_survey()
     }
 }

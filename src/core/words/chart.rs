@@ -5,6 +5,7 @@ use crate::core::physics::engine::{evaluate, Limit};
 use crate::core::planning::cautions::COMMON_HEIGHT_CAP_M;
 use crate::core::planning::solve::{Axis, Sweep};
 use crate::core::words::format::significant;
+use crate::core::words::notes::axis_noun;
 use crate::core::words::units::Units;
 use crate::core::words::units::{METRES_PER_FOOT, METRES_PER_INCH};
 
@@ -123,6 +124,48 @@ fn x_extent(axis: Axis, current: f64, reach: Option<f64>) -> f64 {
     ((wanted / step).ceil() * step).min(hi)
 }
 
+/// The vertical markers: where the plan is now, the common height cap, the crossovers and the
+/// greatest reach, each within the plotted range.
+fn x_markers(
+    sweep: &Sweep,
+    x_max: f64,
+    crossings: &[f64],
+    reach_m: Option<f64>,
+    units: Units,
+    to_x: impl Fn(f64) -> f64,
+) -> Vec<Marker> {
+    let mut markers = vec![Marker {
+        kind: "current",
+        at: to_x(sweep.current()),
+        label: "now".to_string(),
+    }];
+    if sweep.axis == Axis::Height && COMMON_HEIGHT_CAP_M <= x_max {
+        markers.push(Marker {
+            kind: "cap",
+            at: to_x(COMMON_HEIGHT_CAP_M),
+            label: match units {
+                Units::Metric => "120 m".to_string(),
+                Units::Imperial => "400 ft".to_string(),
+            },
+        });
+    }
+    for &c in crossings.iter().filter(|&&c| c > 0.0 && c <= x_max) {
+        markers.push(Marker {
+            kind: "crossover",
+            at: to_x(c),
+            label: "crossover".to_string(),
+        });
+    }
+    if let Some(r) = reach_m.filter(|&r| r <= x_max) {
+        markers.push(Marker {
+            kind: "reach",
+            at: to_x(r),
+            label: "greatest".to_string(),
+        });
+    }
+    markers
+}
+
 /// Builds the chart for a sweep. `need_m` draws the required resolution, `reach_m` helps choose the
 /// x range, `crossings` are positions (m) to mark.
 pub fn build(sweep: &Sweep, need_m: Option<f64>, reach_m: Option<f64>, crossings: &[f64], units: Units) -> Chart {
@@ -170,35 +213,7 @@ pub fn build(sweep: &Sweep, need_m: Option<f64>, reach_m: Option<f64>, crossings
     let x_ticks = ticks(x_max, nice_step(x_max / x_per, 5.0) * x_per, x_per, to_x);
     let y_ticks = ticks(y_max, y_step, y_per, to_y);
 
-    let mut x_markers = vec![Marker {
-        kind: "current",
-        at: to_x(sweep.current()),
-        label: "now".to_string(),
-    }];
-    if axis == Axis::Height && COMMON_HEIGHT_CAP_M <= x_max {
-        x_markers.push(Marker {
-            kind: "cap",
-            at: to_x(COMMON_HEIGHT_CAP_M),
-            label: match units {
-                Units::Metric => "120 m".to_string(),
-                Units::Imperial => "400 ft".to_string(),
-            },
-        });
-    }
-    for &c in crossings.iter().filter(|&&c| c > 0.0 && c <= x_max) {
-        x_markers.push(Marker {
-            kind: "crossover",
-            at: to_x(c),
-            label: "crossover".to_string(),
-        });
-    }
-    if let Some(r) = reach_m.filter(|&r| r <= x_max) {
-        x_markers.push(Marker {
-            kind: "reach",
-            at: to_x(r),
-            label: "greatest".to_string(),
-        });
-    }
+    let x_markers = x_markers(sweep, x_max, crossings, reach_m, units, to_x);
     let y_markers = need_m
         .map(|n| {
             vec![Marker {
@@ -214,7 +229,7 @@ pub fn build(sweep: &Sweep, need_m: Option<f64>, reach_m: Option<f64>, crossings
         plot_right,
         plot_top: TOP,
         plot_bottom,
-        x_title: format!("{} ({x_unit})", capitalise(crate::core::words::notes::axis_noun(axis))),
+        x_title: format!("{} ({x_unit})", capitalise(axis_noun(axis))),
         y_title: format!("Smallest detail ({y_unit})"),
         series,
         envelope,

@@ -1,6 +1,7 @@
 //! The one-page flight plan for paper (A4 and US Letter). Hidden on screen; the print style sheet
 //! shows it alone. Built from the same plan as the screen, laid out for paper.
 
+use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::{AirModel, Offset};
 use crate::core::formats::qr::QrSvg;
 use crate::core::physics::engine::Limit;
@@ -34,24 +35,18 @@ fn air_words(air: AirModel, cn2: f64) -> String {
     }
 }
 
-/// The printed plan.
-#[function_component(PrintSheet)]
-pub fn print_sheet(props: &PrintProps) -> Html {
-    let plan = &props.state.plan;
+/// The scenario's inputs in words, one row per group.
+fn input_rows(plan: &Plan) -> Vec<(&'static str, String)> {
     let s = &plan.scenario;
     let r = &plan.report;
     let units = s.units;
     let len = |m: f64| format::length(m, units);
-    // The local date: the UTC date of `now_iso` is a day off for much of the day away from UTC.
-    let date = browser::local_date();
-    let c = &props.chart;
-    let qr = &props.qr;
     let view = match s.offset {
         Offset::GroundDistance(g) if g > 0.0 => format!("target {} away on the ground", len(g)),
         Offset::GroundDistance(_) => "straight down".to_string(),
         Offset::Tilt(t) => format!("tilted {}° from straight down", format::significant(t)),
     };
-    let inputs: Vec<(&str, String)> = vec![
+    vec![
         (
             "Camera",
             format!(
@@ -89,7 +84,41 @@ pub fn print_sheet(props: &PrintProps) -> Html {
                 format::significant(s.shutter_s)
             ),
         ),
-    ];
+    ]
+}
+
+/// The survey's figures as a table.
+fn survey_table(plan: &Plan) -> Html {
+    let s = &plan.scenario;
+    let survey = &plan.report.survey;
+    let units = s.units;
+    let len = |m: f64| format::length(m, units);
+    html! {
+        <table class="print-table">
+            <tr><th>{ "Footprint" }</th><td>{ format!("{} × {}", len(survey.footprint_across_m), len(survey.footprint_along_m)) }</td></tr>
+            <tr><th>{ "Overlaps" }</th><td>{ format!("{} % front, {} % side", format::significant(s.survey.front_overlap_pct), format::significant(s.survey.side_overlap_pct)) }</td></tr>
+            <tr><th>{ "Base, line spacing" }</th><td>{ format!("{}, {}", len(survey.base_m), len(survey.line_spacing_m)) }</td></tr>
+            <tr><th>{ "Trigger interval" }</th><td>{ survey.trigger_s.map(format::duration).unwrap_or_else(|| "—".into()) }</td></tr>
+            <tr><th>{ "Lines, photos" }</th><td>{ format!("{}, {}", survey.lines.map(|n| n.to_string()).unwrap_or_else(|| "—".into()), survey.photos.map(|n| n.to_string()).unwrap_or_else(|| "—".into())) }</td></tr>
+            <tr><th>{ "Flight time, batteries" }</th><td>{ format!("{}, {}", survey.flight_time_s.map(format::duration).unwrap_or_else(|| "—".into()), survey.batteries.map(|n| n.to_string()).unwrap_or_else(|| "—".into())) }</td></tr>
+            <tr><th>{ "Speed limits" }</th><td>{ format!("blur {}, interval {}", survey.max_speed_blur_mps.map(|v| format::speed(v, units)).unwrap_or_else(|| "—".into()), survey.max_speed_trigger_mps.map(|v| format::speed(v, units)).unwrap_or_else(|| "—".into())) }</td></tr>
+        </table>
+    }
+}
+
+/// The printed plan.
+#[function_component(PrintSheet)]
+pub fn print_sheet(props: &PrintProps) -> Html {
+    let plan = &props.state.plan;
+    let s = &plan.scenario;
+    let r = &plan.report;
+    let units = s.units;
+    let len = |m: f64| format::length(m, units);
+    // The local date: the UTC date of `now_iso` is a day off for much of the day away from UTC.
+    let date = browser::local_date();
+    let c = &props.chart;
+    let qr = &props.qr;
+    let inputs = input_rows(plan);
     let reach = match (r.need_m, r.reach) {
         (Some(need), Some(reach)) => {
             notes::reach(&reach, plan.sweep.axis, &format!("A detail of {}", len(need)), units)
@@ -99,7 +128,6 @@ pub fn print_sheet(props: &PrintProps) -> Html {
             None => "No required resolution was set.".to_string(),
         },
     };
-    let survey = &r.survey;
     let diagram_html = plan
         .layout
         .as_ref()
@@ -131,7 +159,7 @@ pub fn print_sheet(props: &PrintProps) -> Html {
                         { for Limit::ALL.iter().map(|&l| html! {
                             <tr class={classes!((l == r.governing).then_some("governs"))}>
                                 <th>{ notes::limit_title(l) }</th>
-                                <td>{ len(match l { Limit::Sampling => r.gsd_m, Limit::Diffraction => r.diffraction_m, Limit::Turbulence => r.turbulence_m, Limit::Motion => r.motion_m }) }{ if l == r.governing { " — governs" } else { "" } }</td>
+                                <td>{ len(plan.evaluation.limits.get(l)) }{ if l == r.governing { " — governs" } else { "" } }</td>
                             </tr>
                         }) }
                     </table>
@@ -143,15 +171,7 @@ pub fn print_sheet(props: &PrintProps) -> Html {
             <div class="print-grid">
                 <div>
                     <h2>{ "Survey" }</h2>
-                    <table class="print-table">
-                        <tr><th>{ "Footprint" }</th><td>{ format!("{} × {}", len(survey.footprint_across_m), len(survey.footprint_along_m)) }</td></tr>
-                        <tr><th>{ "Overlaps" }</th><td>{ format!("{} % front, {} % side", format::significant(s.front_overlap_pct), format::significant(s.side_overlap_pct)) }</td></tr>
-                        <tr><th>{ "Base, line spacing" }</th><td>{ format!("{}, {}", len(survey.base_m), len(survey.line_spacing_m)) }</td></tr>
-                        <tr><th>{ "Trigger interval" }</th><td>{ survey.trigger_s.map(format::duration).unwrap_or_else(|| "—".into()) }</td></tr>
-                        <tr><th>{ "Lines, photos" }</th><td>{ format!("{}, {}", survey.lines.map(|n| n.to_string()).unwrap_or_else(|| "—".into()), survey.photos.map(|n| n.to_string()).unwrap_or_else(|| "—".into())) }</td></tr>
-                        <tr><th>{ "Flight time, batteries" }</th><td>{ format!("{}, {}", survey.flight_time_s.map(format::duration).unwrap_or_else(|| "—".into()), survey.batteries.map(|n| n.to_string()).unwrap_or_else(|| "—".into())) }</td></tr>
-                        <tr><th>{ "Speed limits" }</th><td>{ format!("blur {}, interval {}", survey.max_speed_blur_mps.map(|v| format::speed(v, units)).unwrap_or_else(|| "—".into()), survey.max_speed_trigger_mps.map(|v| format::speed(v, units)).unwrap_or_else(|| "—".into())) }</td></tr>
-                    </table>
+                    { survey_table(plan) }
                 </div>
                 <div class="print-diagram">{ diagram_html }</div>
             </div>
