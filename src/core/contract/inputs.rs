@@ -572,7 +572,7 @@ impl Input {
     }
 
     /// The value's text in the link, or `None` when the scenario leaves the key out.
-    pub fn write(&self, scenario: &Scenario) -> Option<String> {
+    pub(crate) fn write(&self, scenario: &Scenario) -> Option<String> {
         match self.kind {
             Kind::Version => Some(CONTRACT_VERSION.to_string()),
             Kind::Text { get, .. } => Some(get(scenario).to_string()).filter(|t| !t.is_empty()),

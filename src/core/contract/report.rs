@@ -67,7 +67,7 @@ pub struct Report {
 
 /// The axis the backward solves use: a fixed camera looking across at a target some distance off
 /// solves for ground distance; a camera looking down or tilted solves for height.
-pub fn solve_axis(scenario: &Scenario) -> Axis {
+pub(crate) fn solve_axis(scenario: &Scenario) -> Axis {
     match scenario.offset {
         Offset::GroundDistance(g) if g > 0.0 => Axis::GroundDistance,
         _ => Axis::Height,

@@ -17,7 +17,7 @@ use crate::core::words::units::Units;
 use serde::Serialize;
 
 /// Version of the URL and report contract that this code writes.
-pub const CONTRACT_VERSION: u32 = 1;
+pub(crate) const CONTRACT_VERSION: u32 = 1;
 
 /// A value that was rejected, with the key it came under and a message that names the accepted range.
 #[derive(Clone, Debug, PartialEq, Serialize)]
@@ -110,7 +110,7 @@ impl AirModel {
     ];
 
     /// The contract's words, in [`AirModel::ALL`] order.
-    pub const WORDS: [&'static str; 5] = ["none", "hv57", "slc-day", "slc-night", "power"];
+    pub(crate) const WORDS: [&'static str; 5] = ["none", "hv57", "slc-day", "slc-night", "power"];
 
     /// The contract's word for the model.
     pub fn key(self) -> &'static str {
@@ -276,7 +276,7 @@ impl Scenario {
     }
 
     /// The keys this scenario carries that the contract does not know.
-    pub fn ignored_keys(&self) -> Vec<String> {
+    pub(crate) fn ignored_keys(&self) -> Vec<String> {
         self.extra.iter().map(|(k, _)| k.clone()).collect()
     }
 }

@@ -16,7 +16,7 @@ use serde_json::{json, Map, Value};
 
 /// The most flight lines written to one file; a plan with more is a mistake in the inputs, and the
 /// area's properties say how many were left out.
-pub const MAX_EXPORTED_LINES: u64 = 10_000;
+const MAX_EXPORTED_LINES: u64 = 10_000;
 
 /// Why a plan cannot be exported.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]

@@ -9,11 +9,11 @@ use serde::{Deserialize, Serialize};
 use serde_json::Value;
 
 /// The `format` field of files this code writes.
-pub const FORMAT_NAME: &str = "sharpfield-scenarios";
+const FORMAT_NAME: &str = "sharpfield-scenarios";
 /// The version of the format this code writes.
 pub const FORMAT_VERSION: u64 = 1;
 /// Longest name kept for a saved scenario, in characters.
-pub const NAME_MAX: usize = 120;
+const NAME_MAX: usize = 120;
 
 /// One saved scenario.
 #[derive(Clone, Debug, PartialEq, Eq, Serialize, Deserialize)]
@@ -149,7 +149,7 @@ impl Library {
     }
 
     /// A name not yet used: `name`, else `name (2)`, `name (3)`…
-    pub fn unique_name(&self, name: &str) -> String {
+    fn unique_name(&self, name: &str) -> String {
         let base = clip(name, NAME_MAX);
         let base = if base.is_empty() {
             "Untitled scenario".to_string()

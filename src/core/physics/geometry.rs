@@ -26,9 +26,4 @@ impl Geometry {
     pub fn look_angle_rad(&self) -> f64 {
         self.ground_distance_m.atan2(self.height_m)
     }
-
-    /// Elevation angle ε = 90° − θ of the camera seen from the target, radians.
-    pub fn elevation_rad(&self) -> f64 {
-        self.height_m.atan2(self.ground_distance_m)
-    }
 }

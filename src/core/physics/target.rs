@@ -38,7 +38,7 @@ impl Task {
 
 /// Critical dimension commonly used for a standing person in range-performance work (from memory;
 /// resolution-model §6).
-pub const PERSON_CRITICAL_DIMENSION_M: f64 = 0.75;
+const PERSON_CRITICAL_DIMENSION_M: f64 = 0.75;
 
 /// Target transfer probability function P(N/N50).
 pub fn ttpf(cycles_ratio: f64) -> f64 {

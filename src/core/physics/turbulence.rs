@@ -14,7 +14,7 @@ const FRIED_COEFFICIENT: f64 = 0.423;
 /// Coefficient of the isoplanatic angle, 2.914 (Fried 1982; Schmidt 2010 eq. 9.47).
 const ISOPLANATIC_COEFFICIENT: f64 = 2.914;
 /// Long-exposure seeing FWHM in units of λ/r0, as used across adaptive optics.
-pub const SEEING_FWHM_FACTOR: f64 = 0.98;
+const SEEING_FWHM_FACTOR: f64 = 0.98;
 /// Altitude above which every profile here is taken as free of turbulence (m).
 pub const TOP_OF_TURBULENCE_M: f64 = 30_000.0;
 
@@ -101,7 +101,7 @@ impl Profile {
 /// x^(5/3) for x ≥ 0 (0 for anything else). The path weight is evaluated hundreds of times per
 /// plan; in WebAssembly `powf` and `cbrt` (which leans on a software fused multiply-add) cost
 /// several times more than the exp(e·ln x) used here.
-pub fn five_thirds(x: f64) -> f64 {
+fn five_thirds(x: f64) -> f64 {
     if x > 0.0 {
         power(x, 5.0 / 3.0)
     } else {

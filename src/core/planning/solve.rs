@@ -31,7 +31,7 @@ impl Axis {
 }
 
 /// Points in the scan table.
-pub const TABLE_POINTS: usize = 200;
+const TABLE_POINTS: usize = 200;
 const BISECTIONS: usize = 60;
 
 /// A family of setups along one axis, with the limits tabulated on a log grid.

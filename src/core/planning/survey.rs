@@ -21,7 +21,7 @@ pub const MAX_PHOTOS: u64 = 10_000_000;
 pub const MAX_DRAWN_LINES: u64 = 60;
 
 /// How many photos of line 1 the diagram outlines, so that the front overlap shows.
-pub const DRAWN_PHOTOS_LINE_1: u64 = 3;
+const DRAWN_PHOTOS_LINE_1: u64 = 3;
 
 /// The survey's own settings: the contract's survey keys, in its units (%, m, s, min, MB,
 /// pixels, degrees). The scenario holds them as they are.
@@ -563,7 +563,7 @@ pub struct Rect {
 
 impl Rect {
     /// The rectangle of `width` × `height` centred on `centre`.
-    pub fn centred(centre: Point, width: f64, height: f64) -> Rect {
+    fn centred(centre: Point, width: f64, height: f64) -> Rect {
         Rect {
             x: centre.x - width / 2.0,
             y: centre.y - height / 2.0,

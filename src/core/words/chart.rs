@@ -66,7 +66,7 @@ pub struct Chart {
 }
 
 /// A "nice" step (1, 2 or 5 × 10ⁿ) that splits `span` into about `count` parts.
-pub fn nice_step(span: f64, count: f64) -> f64 {
+fn nice_step(span: f64, count: f64) -> f64 {
     if !(span > 0.0 && span.is_finite() && count > 0.0) {
         return 1.0;
     }

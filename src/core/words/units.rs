@@ -5,13 +5,13 @@ use crate::core::words::format::{format_number, significant};
 use serde::Serialize;
 
 /// Metres in one international foot (exact by definition, 1959).
-pub const METRES_PER_FOOT: f64 = 0.3048;
+pub(crate) const METRES_PER_FOOT: f64 = 0.3048;
 /// Metres in one inch.
-pub const METRES_PER_INCH: f64 = 0.0254;
+pub(crate) const METRES_PER_INCH: f64 = 0.0254;
 /// Metres in one statute mile.
-pub const METRES_PER_MILE: f64 = 1609.344;
+pub(crate) const METRES_PER_MILE: f64 = 1609.344;
 /// Square metres in one international acre.
-pub const SQUARE_METRES_PER_ACRE: f64 = 4_046.856_422_4;
+pub(crate) const SQUARE_METRES_PER_ACRE: f64 = 4_046.856_422_4;
 
 /// Display units; the URL and the engine stay SI either way.
 #[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Serialize)]
