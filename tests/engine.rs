@@ -41,6 +41,8 @@ fn worked() -> Setup {
         profile: Profile::None,
         speed_mps: 10.0,
         exposure_s: 1.0 / 500.0,
+        turn_rate_rad_s: 0.0,
+        target_speed_mps: 0.0,
     }
 }
 
@@ -109,11 +111,48 @@ fn the_four_limits_of_the_worked_example() {
     check("motion in pixels", e.motion_px, 0.5);
     // Q = λN/p = 500e−9 · 4 / 4e−6 = 0.5 (GIQE 5.0).
     check("Q", e.q, 0.5);
-    // Sampling 4 cm governs, 0.04 / 0.0243933… times the runner-up, diffraction.
+    // Sampling passes periods down to 2·GSD = 8 cm (Nyquist; resolution-model §5) and governs,
+    // 0.08 / 0.0243933… times the runner-up, diffraction.
+    check("sampling", e.limits.sampling, 0.08);
     assert_eq!(e.governing, Limit::Sampling);
     assert_eq!(e.runner_up, Limit::Diffraction);
-    check("limit", e.limit_m, 0.04);
-    check("margin", e.margin, 0.04 / (rayleigh * 500.0));
+    check("limit", e.limit_m, 0.08);
+    check("margin", e.margin, 0.08 / (rayleigh * 500.0));
+}
+
+#[test]
+fn motion_adds_the_turning_rate_and_the_target_speed() {
+    // Smear on the target (resolution-model §4): ground speed × t + target speed × t + ω·t·R.
+    // 10 m/s and 2 m/s at 1/500 s, and 1°/s at R = 500 m: 0.02 + 0.004 + 0.0174533/500·500·…
+    let setup = Setup {
+        turn_rate_rad_s: 1f64.to_radians(),
+        target_speed_mps: 2.0,
+        ..worked()
+    };
+    let e = evaluate(&setup);
+    let expected = (10.0 + 2.0 + 1f64.to_radians() * 500.0) / 500.0;
+    check("motion", e.limits.motion, expected);
+    check("motion in pixels", e.motion_px, expected / 0.04);
+}
+
+#[test]
+fn sampling_and_diffraction_cross_at_q_1_64() {
+    // 2·p·R/f = (j₁,₁/π)·λ·N·R/f ⇔ Q = λN/p = 2π/j₁,₁ = 1.6398 (resolution-model §5), so the
+    // limit that governs between the two always agrees with the regime Q names.
+    let q_cross = 2.0 * PI / 3.831_705_970_207_512_5;
+    for (q, governs) in [(q_cross * 0.99, Limit::Sampling), (q_cross * 1.01, Limit::Diffraction)] {
+        // Q = λN/p with λ = 500 nm and p = 4 µm: N = Q·p/λ.
+        let setup = Setup {
+            f_number: q * 4e-6 / 500e-9,
+            speed_mps: 0.0,
+            ..worked()
+        };
+        let e = evaluate(&setup);
+        assert_eq!(e.governing, governs, "Q = {q}");
+        let regime = sharpfield::core::physics::optics::sampling_regime(e.q);
+        let detector = regime == sharpfield::core::physics::optics::SamplingRegime::DetectorLimited;
+        assert_eq!(detector, governs == Limit::Sampling, "Q = {q}: {regime:?}");
+    }
 }
 
 #[test]
@@ -301,6 +340,8 @@ fn every_figure_is_finite_at_the_edges_of_the_valid_ranges() {
                         profile,
                         speed_mps: speed,
                         exposure_s: exposure,
+                        turn_rate_rad_s: 0.0,
+                        target_speed_mps: 0.0,
                     };
                     let e = evaluate(&setup);
                     let figures = [

@@ -5,7 +5,7 @@
 use sharpfield::core::contract::report::report_for_query;
 use sharpfield::core::physics::engine::Limit;
 use sharpfield::core::physics::optics::SamplingRegime;
-use sharpfield::core::physics::target::Task;
+use sharpfield::core::physics::target::{PeopleLevel, Task};
 use sharpfield::core::planning::cautions::Caution;
 use sharpfield::core::planning::solve::{Axis, Reach};
 use sharpfield::core::planning::survey::{
@@ -167,10 +167,20 @@ fn words_without_units_are_complete() {
         Caution::General,
         Caution::Height { airborne: true },
         Caution::Height { airborne: false },
-        Caution::Privacy,
+        Caution::Privacy {
+            px_per_m: 130.0,
+            level: PeopleLevel::Recognition,
+        },
+        Caution::Privacy {
+            px_per_m: 300.0,
+            level: PeopleLevel::Identification,
+        },
     ] {
         let text = notes::caution(caution);
         assert!(text.contains("local") || text.contains("where you work"), "{text}");
+        if let Caution::Privacy { px_per_m, .. } = caution {
+            assert!(text.contains(&format!("{px_per_m} pixels per metre")), "{text}");
+        }
     }
     let text = notes::overlap(&overlap_guidance(75.0, 65.0));
     assert!(text.starts_with("Overlap of 75 % front and 65 % side"), "{text}");

@@ -280,7 +280,14 @@ fn sampling_ratio_q() {
             1e-12,
         );
     }
-    // GIQE 5.0: Q < 2 is detector-limited (aliasing possible), Q ≥ 2 optics-limited.
-    assert_eq!(optics::sampling_regime(1.9), optics::SamplingRegime::DetectorLimited);
-    assert_eq!(optics::sampling_regime(2.0), optics::SamplingRegime::OpticsLimited);
+    // The regime splits where 2·GSD meets the Rayleigh separation, Q = 2π/j₁,₁ = 1.6398
+    // (resolution-model §5), so it never contradicts the limit that governs.
+    check(
+        "crossover Q",
+        optics::SAMPLING_DIFFRACTION_Q,
+        1.639_787_957_644_179_6,
+        1e-12,
+    );
+    assert_eq!(optics::sampling_regime(1.63), optics::SamplingRegime::DetectorLimited);
+    assert_eq!(optics::sampling_regime(1.65), optics::SamplingRegime::OpticsLimited);
 }

@@ -70,6 +70,7 @@ const NESTED_NUMBER_KEYS: &[&str] = &[
 /// work, gives `None` beside a note for those).
 const NULLABLE_KEYS: &[&str] = &[
     "r0_m",
+    "people_level",
     "need_m",
     "reach",
     "reach_m",
@@ -382,6 +383,8 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
         in_range("cexp"),
         in_range("speed"),
         in_range("shutter"),
+        in_range("rate"),
+        in_range("tspeed"),
     );
     let survey = (
         maybe("aw"),
@@ -407,7 +410,7 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
     (optics, air, survey, place).prop_map(
         |(
             (sw, sh, cols, rows, focal, fnum, wl, h, offset),
-            (air, cn2, cexp, speed, shutter),
+            (air, cn2, cexp, speed, shutter, rate, tspeed),
             (aw, al, fo, so, need, tdim, trig, endur, turn, mb, blur),
             (lat, lon, hdg, units, name, extra),
         )| Scenario {
@@ -426,6 +429,8 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
             cn2_exponent: cexp,
             speed_mps: speed,
             shutter_s: shutter,
+            turn_rate_deg_s: rate,
+            target_speed_mps: tspeed,
             need_m: need,
             target_m: tdim,
             survey: SurveySettings {

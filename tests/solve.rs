@@ -305,9 +305,10 @@ fn focal_needed_meets_the_need_when_evaluated_again() {
 
 #[test]
 fn focal_needed_of_a_worked_example() {
-    // 2.4 µm pixels (13.2 mm / 5500), nadir at 100 m, no air, still: GSD = 2.4e−6 m · 100 m / f,
-    // so a 1 cm need takes f = 24 mm; diffraction at f/2.8, 550 nm is 1.21967·550e−9·2.8·100 m / f
-    // = 1.88e−4 m² / f (Born & Wolf §8.5), smaller than 2.4e−4 m² / f, so sampling sets it.
+    // 2.4 µm pixels (13.2 mm / 5500), nadir at 100 m, no air, still: the sampling limit is
+    // 2·GSD = 2 · 2.4e−6 m · 100 m / f (resolution-model §5), so a 1 cm need takes f = 48 mm;
+    // diffraction at f/2.8, 550 nm is 1.21967·550e−9·2.8·100 m / f = 1.88e−4 m² / f (Born & Wolf
+    // §8.5), smaller than 4.8e−4 m² / f, so sampling sets it.
     let setup = Setup {
         sensor_width_m: 0.0132,
         sensor_height_m: 0.0088,
@@ -323,10 +324,12 @@ fn focal_needed_of_a_worked_example() {
         profile: Profile::None,
         speed_mps: 0.0,
         exposure_s: 0.001,
+        turn_rate_rad_s: 0.0,
+        target_speed_mps: 0.0,
     };
     match focal_needed(&evaluate(&setup), &setup, 0.01) {
         FocalNeed::AtLeast { focal_m, bound_by } => {
-            assert!((focal_m - 0.024).abs() < 1e-15, "{focal_m}");
+            assert!((focal_m - 0.048).abs() < 1e-15, "{focal_m}");
             assert_eq!(bound_by, Limit::Sampling);
         }
         other => panic!("expected AtLeast, got {other:?}"),
@@ -387,8 +390,9 @@ fn envelope_keeps_a_brief_lead_between_two_table_points() {
     // Found by the property test below: looking 85.7° from straight down, motion governs up to
     // 64.3 m, sampling only until 66.6 m, then turbulence — both changes between two neighbouring
     // points of the 200-point table. The envelope once reported a single motion → turbulence change.
+    // (Found with sampling at one GSD; the sensor width is halved here so that 2·GSD is the same.)
     let setup = Setup {
-        sensor_width_m: 0.18369001230276225,
+        sensor_width_m: 0.18369001230276225 / 2.0,
         sensor_height_m: 0.18369001230276225,
         cols: 95207,
         rows: 95207,
@@ -402,6 +406,8 @@ fn envelope_keeps_a_brief_lead_between_two_table_points() {
         profile: Profile::HV57,
         speed_mps: 2.271532168577941,
         exposure_s: 0.005790549606693558,
+        turn_rate_rad_s: 0.0,
+        target_speed_mps: 0.0,
     };
     let sweep = Sweep::new(setup, Axis::Height);
     if let Err(problem) = check_envelope(&sweep, 2000) {

@@ -79,11 +79,12 @@ fn johnson_cycles_for_a_fifty_percent_chance() {
 
 #[test]
 fn cycles_across_a_target() {
-    // N = critical dimension / (2 × limit) (resolution-model §6); (dimension m, limit m, N).
+    // N = critical dimension / resolvable period, the governing limit being a period for every
+    // limit (resolution-model §5–§6; one cycle is one bar and one gap); (dimension m, period m, N).
     let cases = [
-        (0.75, 0.05, 7.5),
-        (2.3, 0.1, 11.5),
-        (0.75, 0.75 / 12.8, 6.4),
+        (0.75, 0.1, 7.5),
+        (2.3, 0.2, 11.5),
+        (0.75, 0.75 / 6.4, 6.4),
         (1.0, 0.0, f64::MAX),
         (0.0, 0.1, 0.0),
         // A broken limit claims nothing (rather than certainty).
@@ -104,8 +105,8 @@ fn cycles_across_a_target() {
 
 #[test]
 fn task_chances_follow_the_ttpf_for_each_task() {
-    // A person's 0.75 m (from memory; resolution-model §6) under a 5 cm limit: 7.5 cycles.
-    let (n, chances) = target::task_chances(0.75, 0.05);
+    // A person's 0.75 m (from memory; resolution-model §6) under a 10 cm period: 7.5 cycles.
+    let (n, chances) = target::task_chances(0.75, 0.1);
     check("cycles", n, 7.5, 1e-12);
     assert_eq!(chances.len(), 4);
     for (chance, task) in chances.iter().zip(Task::ALL) {
@@ -118,12 +119,27 @@ fn task_chances_follow_the_ttpf_for_each_task() {
         );
     }
     // Identification at exactly N50 = 6.4 cycles is the 50 % point.
-    check(
-        "identification limit",
-        target::person_identification_limit_m(),
-        0.75 / (2.0 * 6.4),
-        1e-15,
-    );
-    let (_, at_limit) = target::task_chances(0.75, target::person_identification_limit_m());
-    check("P(identification) at its limit", at_limit[3].probability, 0.5, 1e-12);
+    let (_, at_n50) = target::task_chances(0.75, 0.75 / 6.4);
+    check("P(identification) at N50", at_n50[3].probability, 0.5, 1e-12);
+}
+
+#[test]
+fn pixel_density_levels_for_watching_people() {
+    // IEC 62676-4:2014 operational levels (from memory; resolution-model §6): detection 25 px/m,
+    // observation 62.5, recognition 125, identification 250.
+    use target::PeopleLevel::*;
+    let cases = [
+        (10.0, None),
+        (25.0, Some(Detection)),
+        (62.4, Some(Detection)),
+        (62.5, Some(Observation)),
+        (124.9, Some(Observation)),
+        (125.0, Some(Recognition)),
+        (250.0, Some(Identification)),
+        (1e6, Some(Identification)),
+        (f64::NAN, None),
+    ];
+    for (px, level) in cases {
+        assert_eq!(target::people_level(px), level, "{px} px/m");
+    }
 }

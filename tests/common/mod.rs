@@ -92,6 +92,8 @@ pub fn any_setup() -> impl Strategy<Value = Setup> {
             profile,
             speed_mps: speed,
             exposure_s: shutter,
+            turn_rate_rad_s: 0.0,
+            target_speed_mps: 0.0,
         },
     )
 }

@@ -17,10 +17,11 @@ const PAPER = { A4: [595.28, 841.89], Letter: [612, 792] };
 const SCENARIOS = {
   'default demo': { query: '' },
   'fence-mast demo (ground distance)': { query: '', demo: 'Ridge Road fence-line mast camera (demo)' },
-  // The longest sheet: a two-line name, every caution (above 120 m, people identifiable), a large
+  // The longest sheet: a two-line name, every caution (above 120 m, a 50 mm lens giving 138 px/m on
+  // the target, where people can be recognised), a large
   // area with lines left out of the drawing, and imperial units' longer figures.
   'long name, every caution, a large survey area': {
-    query: 'v=1&name=' + encodeURIComponent(LONG_NAME) + '&sw=13.2&sh=8.8&cols=5472&rows=3648&focal=24&fnum=4&wl=550'
+    query: 'v=1&name=' + encodeURIComponent(LONG_NAME) + '&sw=13.2&sh=8.8&cols=5472&rows=3648&focal=50&fnum=4&wl=550'
       + '&h=150&gd=0&air=slc-day&speed=12&shutter=1%2F500&aw=1800&al=2600&fo=80&so=70&need=0.02&tdim=0.5'
       + '&trig=1.5&endur=20&units=imperial',
     cautions: 3,
@@ -115,7 +116,7 @@ for (const [label, { query, demo, cautions }] of Object.entries(SCENARIOS)) {
       has(facts.name || 'Untitled scenario', 'the scenario name');
       has(`Printed ${facts.today}`, 'the date');
       for (const heading of ['Inputs', 'Resolution', 'Survey', 'Cautions', 'Sign-off']) has(heading, 'a heading');
-      for (const limit of ['Pixel sampling (GSD)', 'Lens diffraction (Rayleigh)', 'Air turbulence (seeing)', 'Motion during the exposure']) {
+      for (const limit of ['Pixel sampling (2 × GSD)', 'Lens diffraction (Rayleigh)', 'Air turbulence (seeing)', 'Motion during the exposure']) {
         has(limit, 'one of the four limits');
       }
       has(`${facts.governing} governs at`, 'the governing limit in words');

@@ -203,11 +203,13 @@ const GEOMETRY: &[&str] = &[
     "look_angle_deg",
     "gsd_m",
     "gsd_ground_m",
+    "sampling_m",
+    "px_per_m",
     "diffraction_m",
     "r0_m",
     "turbulence_m",
 ];
-const PIXEL_PITCH: &[&str] = &["pitch_m", "gsd_m", "gsd_ground_m", "q"];
+const PIXEL_PITCH: &[&str] = &["pitch_m", "gsd_m", "gsd_ground_m", "sampling_m", "px_per_m", "q"];
 const TURBULENCE: &[&str] = &["r0_m", "turbulence_m"];
 
 /// Every key of the contract, in the order a query is written and errors are listed.
@@ -249,7 +251,14 @@ pub const INPUTS: &[Input] = &[
     number("focal", "Focal length", "mm", (0.5, 5000.0), plain!(focal_mm))
         .or(8.8)
         .required()
-        .feeds(&["aperture_m", "gsd_m", "gsd_ground_m", "diffraction_m"]),
+        .feeds(&[
+            "aperture_m",
+            "gsd_m",
+            "gsd_ground_m",
+            "sampling_m",
+            "px_per_m",
+            "diffraction_m",
+        ]),
     number("fnum", "f-number", "", (0.5, 64.0), plain!(f_number))
         .or(4.0)
         .required()
@@ -329,6 +338,25 @@ pub const INPUTS: &[Input] = &[
         .or(0.001)
         .fraction()
         .feeds(&["motion_m"]),
+    number(
+        "rate",
+        "Camera turning rate during the exposure",
+        "°/s",
+        (0.0, 360.0),
+        plain!(turn_rate_deg_s),
+    )
+    .or(0.0)
+    .feeds(&["motion_m"]),
+    number(
+        "tspeed",
+        "Target speed across the view",
+        "m/s",
+        (0.0, 150.0),
+        plain!(target_speed_mps),
+    )
+    .or(0.0)
+    .imperial(MPH)
+    .feeds(&["motion_m"]),
     number(
         "aw",
         "Area width (across the lines)",

@@ -6,7 +6,7 @@ use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::{FieldError, Offset, RawScenario, Scenario, CONTRACT_VERSION};
 use crate::core::physics::engine::{Evaluation, Limit, Setup};
 use crate::core::physics::optics;
-use crate::core::physics::target::{person_identification_limit_m, task_chances, TaskChance};
+use crate::core::physics::target::{people_level, task_chances, PeopleLevel, TaskChance};
 use crate::core::planning::cautions::{self, CautionInputs};
 use crate::core::planning::solve::{focal_needed, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep};
 use crate::core::planning::survey::SurveyPlan;
@@ -26,6 +26,8 @@ pub struct Report {
     pub gsd_ground_m: f64,
     pub gsd_geomean_m: f64,
     pub gsd_weighted_m: f64,
+    /// The sampling limit, 2·GSD: the finest period the pixels record (resolution-model §5).
+    pub sampling_m: f64,
     pub rayleigh_rad: f64,
     pub diffraction_m: f64,
     pub r0_m: Option<f64>,
@@ -54,7 +56,12 @@ pub struct Report {
     pub target_m: Option<f64>,
     pub target_cycles: Option<f64>,
     pub target_chances: Vec<TaskChance>,
+    /// Whether a stranger could be identified (IEC 62676-4 identification, 250 px/m).
     pub identifies_people: bool,
+    /// Pixels per metre on the target, 1/GSD in the plane normal to the view.
+    pub px_per_m: f64,
+    /// The highest level for watching people that the pixel density reaches (null below 25 px/m).
+    pub people_level: Option<PeopleLevel>,
     pub cautions: Vec<CautionWords>,
     #[serde(flatten)]
     pub survey: SurveyPlan,
@@ -101,11 +108,12 @@ impl Report {
             }
             None => (None, Vec::new()),
         };
-        let identifies_people = e.limit_m <= person_identification_limit_m();
+        let px_per_m = if e.gsd_m > 0.0 { 1.0 / e.gsd_m } else { 0.0 };
+        let people = people_level(px_per_m);
         let cautions = cautions::cautions(CautionInputs {
             height_m: scenario.height_m,
             airborne: sweep.axis == Axis::Height,
-            identifies_people,
+            px_per_m,
         });
         Report {
             v: CONTRACT_VERSION,
@@ -118,6 +126,7 @@ impl Report {
             gsd_ground_m: e.gsd_ground_m,
             gsd_geomean_m: e.gsd_geomean_m,
             gsd_weighted_m: e.gsd_weighted_m,
+            sampling_m: e.limits.sampling,
             rayleigh_rad: e.rayleigh_rad,
             diffraction_m: e.limits.diffraction,
             r0_m: e.r0_m,
@@ -144,7 +153,9 @@ impl Report {
             target_m: scenario.target_m,
             target_cycles,
             target_chances,
-            identifies_people,
+            identifies_people: people == Some(PeopleLevel::Identification),
+            px_per_m,
+            people_level: people,
             cautions: notes::cautions(&cautions),
             survey: survey.clone(),
             survey_words: notes::survey_words(survey, scenario.units),

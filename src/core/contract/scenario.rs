@@ -139,6 +139,10 @@ pub struct Scenario {
     pub cn2_at_1m: f64,
     pub cn2_exponent: f64,
     pub speed_mps: f64,
+    /// The camera's turning rate during the exposure, °/s (`rate`).
+    pub turn_rate_deg_s: f64,
+    /// The target's own speed across the view (`tspeed`).
+    pub target_speed_mps: f64,
     pub shutter_s: f64,
     pub need_m: Option<f64>,
     pub target_m: Option<f64>,
@@ -253,6 +257,8 @@ impl Scenario {
             profile: self.profile(),
             speed_mps: self.speed_mps,
             exposure_s: self.shutter_s,
+            turn_rate_rad_s: self.turn_rate_deg_s.to_radians(),
+            target_speed_mps: self.target_speed_mps,
         }
     }
 

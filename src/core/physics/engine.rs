@@ -21,8 +21,13 @@ pub struct Setup {
     pub wavelength_m: f64,
     pub geometry: Geometry,
     pub profile: Profile,
+    /// Ground speed of the camera.
     pub speed_mps: f64,
     pub exposure_s: f64,
+    /// The camera's turning rate during the exposure (gimbal slew, mast sway), rad/s.
+    pub turn_rate_rad_s: f64,
+    /// The target's own speed across the view.
+    pub target_speed_mps: f64,
 }
 
 impl Setup {
@@ -162,10 +167,17 @@ pub fn evaluate(setup: &Setup) -> Evaluation {
         setup.wavelength_m,
     );
     let seeing = finite(turbulence::seeing_angle(setup.wavelength_m, r0));
-    let motion = finite(setup.speed_mps * setup.exposure_s);
+    // Smear on the target during the exposure (resolution-model §4): the camera's ground speed, the
+    // target's own speed and the camera's turning rate ω·R, taken as adding up (the worst case).
+    let motion = finite(
+        (finite(setup.speed_mps) + finite(setup.target_speed_mps) + finite(setup.turn_rate_rad_s) * range)
+            * setup.exposure_s,
+    );
 
+    // Every limit is the smallest separation it lets through (resolution-model §5): a pixel is a
+    // sample spacing, so sampling passes periods down to 2·GSD (Nyquist).
     let limits = Limits {
-        sampling: gsd,
+        sampling: 2.0 * gsd,
         diffraction: finite(rayleigh * range),
         turbulence: finite(seeing * range),
         motion,

@@ -59,18 +59,23 @@ pub fn box_mtf(width_times_frequency: f64) -> f64 {
     }
 }
 
-/// What limits a sampled optical system, from Q (GIQE 5.0).
+/// Q at which the sampling limit 2·GSD equals the Rayleigh separation: 2·p = (j₁,₁/π)·λN, so
+/// Q = 2π/j₁,₁ = 1.640 (resolution-model §5).
+pub const SAMPLING_DIFFRACTION_Q: f64 = 2.0 / RAYLEIGH_FACTOR;
+
+/// What limits a sampled optical system, from Q.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
 pub enum SamplingRegime {
-    /// Q < 2: the pixels are coarser than the optics.
+    /// Q below [`SAMPLING_DIFFRACTION_Q`]: two pixels span more than the Rayleigh separation.
     DetectorLimited,
-    /// Q ≥ 2: the lens blur spans more than two pixels.
+    /// Q at or above it: the lens blur is wider than two pixels.
     OpticsLimited,
 }
 
-/// The sampling regime of Q = λN/p (GIQE 5.0).
+/// The sampling regime of Q = λN/p, split where sampling and diffraction limit alike (Q = 1.64),
+/// so that it always agrees with the limit that governs between the two.
 pub fn sampling_regime(q: f64) -> SamplingRegime {
-    if q < 2.0 {
+    if q < SAMPLING_DIFFRACTION_Q {
         SamplingRegime::DetectorLimited
     } else {
         SamplingRegime::OpticsLimited

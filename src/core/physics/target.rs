@@ -36,10 +36,6 @@ impl Task {
     }
 }
 
-/// Critical dimension commonly used for a standing person in range-performance work (from memory;
-/// resolution-model §6).
-const PERSON_CRITICAL_DIMENSION_M: f64 = 0.75;
-
 /// Target transfer probability function P(N/N50).
 pub fn ttpf(cycles_ratio: f64) -> f64 {
     if cycles_ratio == f64::INFINITY {
@@ -57,10 +53,11 @@ pub fn ttpf(cycles_ratio: f64) -> f64 {
     }
 }
 
-/// Resolvable cycles across a target: critical dimension / (2 × the governing limit).
+/// Resolvable cycles across a target: critical dimension / the resolvable period (the governing
+/// limit, a separation of one kind for every limit; resolution-model §6).
 pub fn cycles_across(critical_dimension_m: f64, limit_m: f64) -> f64 {
     if limit_m > 0.0 && critical_dimension_m > 0.0 {
-        let n = critical_dimension_m / (2.0 * limit_m);
+        let n = critical_dimension_m / limit_m;
         if n.is_finite() {
             n
         } else {
@@ -97,8 +94,42 @@ pub fn task_chances(critical_dimension_m: f64, limit_m: f64) -> (f64, Vec<TaskCh
     (n, chances)
 }
 
-/// The largest limit at which a person (0.75 m) can be identified with a 50 % chance:
-/// 0.75 m / (2 × 6.4).
-pub fn person_identification_limit_m() -> f64 {
-    PERSON_CRITICAL_DIMENSION_M / (2.0 * Task::Identification.n50())
+/// What a viewer can make out of a person at a pixel density on the target, by the operational
+/// levels of video surveillance (IEC 62676-4:2014; from memory, resolution-model §6).
+#[derive(Clone, Copy, Debug, PartialEq, Eq, PartialOrd, Ord, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum PeopleLevel {
+    /// 25 px/m: that a person is there.
+    Detection,
+    /// 62.5 px/m: what a person is doing, their clothing.
+    Observation,
+    /// 125 px/m: a person known to the viewer can be recognised.
+    Recognition,
+    /// 250 px/m: an unknown individual can be identified.
+    Identification,
+}
+
+impl PeopleLevel {
+    /// The levels, lowest first.
+    pub const ALL: [PeopleLevel; 4] = [
+        PeopleLevel::Detection,
+        PeopleLevel::Observation,
+        PeopleLevel::Recognition,
+        PeopleLevel::Identification,
+    ];
+
+    /// Pixels per metre on the target that the level asks for (IEC 62676-4; from memory).
+    pub fn px_per_m(self) -> f64 {
+        match self {
+            PeopleLevel::Detection => 25.0,
+            PeopleLevel::Observation => 62.5,
+            PeopleLevel::Recognition => 125.0,
+            PeopleLevel::Identification => 250.0,
+        }
+    }
+}
+
+/// The highest level that `px_per_m` pixels per metre on the target reach, if any.
+pub fn people_level(px_per_m: f64) -> Option<PeopleLevel> {
+    PeopleLevel::ALL.into_iter().rev().find(|l| px_per_m >= l.px_per_m())
 }

@@ -1,19 +1,21 @@
 //! Cautions shown beside every plan: aviation height and privacy. They inform; they never decide
 //! that a flight is allowed (resolution-model §8). The words layer words them.
 
+use crate::core::physics::target::{people_level, PeopleLevel};
+
 /// Height above which many jurisdictions cap small unmanned aircraft: 120 m (about 400 ft),
 /// e.g. US 14 CFR §107.51 and the EU open category of Regulation 2019/947.
 pub const COMMON_HEIGHT_CAP_M: f64 = 120.0;
 
 /// One caution.
-#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+#[derive(Clone, Copy, Debug, PartialEq)]
 pub enum Caution {
     /// Always present: the planner estimates, it never says a flight is allowed.
     General,
     /// Above [`COMMON_HEIGHT_CAP_M`]; `airborne` when the camera is carried by an aircraft.
     Height { airborne: bool },
-    /// A person in the images could be identified.
-    Privacy,
+    /// At `px_per_m` on the target a person could be recognised (or identified, by `level`).
+    Privacy { px_per_m: f64, level: PeopleLevel },
 }
 
 impl Caution {
@@ -22,7 +24,7 @@ impl Caution {
         match self {
             Caution::General => "general",
             Caution::Height { .. } => "height",
-            Caution::Privacy => "privacy",
+            Caution::Privacy { .. } => "privacy",
         }
     }
 }
@@ -33,8 +35,8 @@ pub struct CautionInputs {
     pub height_m: f64,
     /// True when the camera is carried by an aircraft (a drone survey), false for a mast.
     pub airborne: bool,
-    /// True when the plan resolves a person at Johnson identification level.
-    pub identifies_people: bool,
+    /// Pixels per metre on the target (1/GSD).
+    pub px_per_m: f64,
 }
 
 /// The cautions for a plan; the general one is always present.
@@ -45,8 +47,12 @@ pub fn cautions(inputs: CautionInputs) -> Vec<Caution> {
             airborne: inputs.airborne,
         });
     }
-    if inputs.identifies_people {
-        out.push(Caution::Privacy);
+    // From the level at which a person known to the viewer can be recognised (IEC 62676-4).
+    if let Some(level) = people_level(inputs.px_per_m).filter(|l| *l >= PeopleLevel::Recognition) {
+        out.push(Caution::Privacy {
+            px_per_m: inputs.px_per_m,
+            level,
+        });
     }
     out
 }

@@ -279,7 +279,8 @@ pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need_m: f64) -> Foca
         return FocalNeed::Impossible { forbidden_by: *limit };
     }
     let range = evaluation.slant_range_m;
-    let for_sampling = setup.pixel_pitch_m() * range / need_m;
+    // The sampling limit is 2·GSD = 2·p·R/f (resolution-model §5).
+    let for_sampling = 2.0 * setup.pixel_pitch_m() * range / need_m;
     let for_diffraction = RAYLEIGH_FACTOR * setup.wavelength_m * setup.f_number * range / need_m;
     if for_sampling >= for_diffraction {
         FocalNeed::AtLeast {

@@ -3,7 +3,7 @@
 
 use crate::core::physics::engine::Limit;
 use crate::core::physics::optics::SamplingRegime;
-use crate::core::physics::target::Task;
+use crate::core::physics::target::{PeopleLevel, Task};
 use crate::core::planning::cautions::Caution;
 use crate::core::planning::solve::{Axis, Reach};
 use crate::core::planning::survey::{
@@ -13,10 +13,20 @@ use crate::core::words::format::{length, significant, speed};
 use crate::core::words::units::Units;
 use serde::Serialize;
 
+/// `text` with its first letter in lower case, for a title used inside a sentence (so that
+/// "GSD" keeps its capitals).
+pub fn lower_first(text: &str) -> String {
+    let mut chars = text.chars();
+    match chars.next() {
+        Some(c) => c.to_lowercase().chain(chars).collect(),
+        None => String::new(),
+    }
+}
+
 /// The limit's name in plain words.
 pub fn limit_title(limit: Limit) -> &'static str {
     match limit {
-        Limit::Sampling => "Pixel sampling (GSD)",
+        Limit::Sampling => "Pixel sampling (2 × GSD)",
         Limit::Diffraction => "Lens diffraction (Rayleigh)",
         Limit::Turbulence => "Air turbulence (seeing)",
         Limit::Motion => "Motion during the exposure",
@@ -34,7 +44,7 @@ pub fn limit_advice(limit: Limit) -> &'static str {
             "Shorten the air path (fly lower, stand closer), work early in the morning or in overcast, or keep the \
              path away from hot ground."
         }
-        Limit::Motion => "Use a shorter exposure time or a slower ground speed.",
+        Limit::Motion => "Use a shorter exposure time, a slower ground speed or a steadier camera.",
     }
 }
 
@@ -42,9 +52,9 @@ pub fn limit_advice(limit: Limit) -> &'static str {
 pub fn sampling_regime(regime: SamplingRegime) -> &'static str {
     match regime {
         SamplingRegime::DetectorLimited => {
-            "detector-limited: the pixels are coarser than the optics, fine patterns may alias"
+            "detector-limited (below 1.64): two pixels span more than the lens blur, fine patterns may alias"
         }
-        SamplingRegime::OpticsLimited => "optics-limited: the lens blur spans more than two pixels",
+        SamplingRegime::OpticsLimited => "optics-limited (1.64 or more): the lens blur spans more than two pixels",
     }
 }
 
@@ -54,7 +64,7 @@ pub fn task(task: Task) -> &'static str {
         Task::Detection => "see that something is there",
         Task::Orientation => "tell which way it lies",
         Task::Recognition => "tell what kind of thing it is (a person, a vehicle, an animal)",
-        Task::Identification => "tell which one it is (this person, this model)",
+        Task::Identification => "tell which kind within its class (a tractor, not a truck)",
     }
 }
 
@@ -73,14 +83,14 @@ pub fn reach(reach: &Reach, axis: Axis, need_text: &str, units: Units) -> String
         Reach::UpTo { position_m, bound_by } => format!(
             "{need_text} is met up to a {noun} of {}; beyond that {} exceeds it.",
             length(position_m, units),
-            limit_title(bound_by).to_lowercase()
+            lower_first(limit_title(bound_by))
         ),
         Reach::Everywhere { up_to_m } => {
             format!("{need_text} is met at every {noun} up to {}.", length(up_to_m, units))
         }
         Reach::Nowhere { forbidden_by, best_m } => format!(
             "{need_text} cannot be met at any {noun}: {} alone is {} even close in. {}",
-            limit_title(forbidden_by).to_lowercase(),
+            lower_first(limit_title(forbidden_by)),
             length(best_m, units),
             limit_advice(forbidden_by)
         ),
@@ -106,10 +116,16 @@ pub fn caution(caution: Caution) -> String {
                  aircraft in sight. Check local rules before planning this."
             )
         }
-        Caution::Privacy => "At this resolution a person in the images could be identified. In many \
-                             jurisdictions such images are personal data: tell people nearby, avoid private \
-                             spaces, keep only what the job needs, and check local privacy law."
-            .to_string(),
+        Caution::Privacy { px_per_m, level } => format!(
+            "At about {} pixels per metre on the target {}. In many jurisdictions such images are \
+             personal data: tell people nearby, avoid private spaces, keep only what the job needs, and \
+             check local privacy law.",
+            significant(px_per_m),
+            match level {
+                PeopleLevel::Identification => "a person could be identified, even by someone who does not know them",
+                _ => "a person could be recognised by someone who knows them (identifying a stranger takes about 250)",
+            }
+        ),
     }
 }
 

@@ -278,6 +278,7 @@ pub fn motion_group(props: &InputsProps) -> Html {
         <fieldset class="group" id="group-motion">
             <legend>{ "Motion" }</legend>
             { pair(field(props, "speed", speed_hint), field(props, "shutter", Some("1/1000 is accepted".to_string()))) }
+            { pair(field(props, "rate", Some("gimbal slew, mast sway".to_string())), field(props, "tspeed", None)) }
         </fieldset>
     }
 }

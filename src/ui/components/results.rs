@@ -17,7 +17,7 @@ pub struct ResultsProps {
 /// The report field of each limit.
 pub fn field_of(limit: Limit) -> &'static str {
     match limit {
-        Limit::Sampling => "gsd_m",
+        Limit::Sampling => "sampling_m",
         Limit::Diffraction => "diffraction_m",
         Limit::Turbulence => "turbulence_m",
         Limit::Motion => "motion_m",
@@ -38,17 +38,24 @@ pub fn value(key: &'static str, si: f64, text: String) -> Html {
     html! { <span class="value" data-key={key} data-si={si.to_string()}>{ text }</span> }
 }
 
-fn detail(limit: Limit, state: &State) -> String {
+/// What a limit's figure means, under it; the sampling limit names the GSD it is twice.
+fn detail(limit: Limit, state: &State) -> Html {
     let report = &state.plan.report;
     let units = state.plan.scenario.units;
-    match limit {
-        Limit::Sampling if report.look_angle_deg > 1.0 => {
-            format!(
-                "on the ground along the view: {}",
-                format::length(report.gsd_ground_m, units)
-            )
+    let text = match limit {
+        Limit::Sampling => {
+            let along = if report.look_angle_deg > 1.0 {
+                format!(
+                    "; on the ground along the view {}",
+                    format::length(report.gsd_ground_m, units)
+                )
+            } else {
+                String::new()
+            };
+            return html! {
+                <>{ "two pixels: GSD " }{ value("gsd_m", report.gsd_m, format::length(report.gsd_m, units)) }{ along }</>
+            };
         }
-        Limit::Sampling => "one pixel's footprint".to_string(),
         Limit::Diffraction => format!(
             "{} µrad at f/{}",
             format::significant(report.rayleigh_rad * 1e6),
@@ -59,16 +66,8 @@ fn detail(limit: Limit, state: &State) -> String {
             None => "no turbulence in this scenario".to_string(),
         },
         Limit::Motion => format!("{} pixels of smear", format::significant(report.motion_px)),
-    }
-}
-
-/// `text` with its first letter in lower case, for a title used inside a sentence.
-fn lower_first(text: &str) -> String {
-    let mut chars = text.chars();
-    match chars.next() {
-        Some(c) => c.to_lowercase().chain(chars).collect(),
-        None => String::new(),
-    }
+    };
+    html! { { text } }
 }
 
 /// The results panel.
@@ -90,21 +89,16 @@ pub fn results(props: &ResultsProps) -> Html {
                 <strong>{ format!("{} governs: ", notes::limit_title(governing)) }</strong>
                 { value("limit_m", report.limit_m, format::length(report.limit_m, units)) }
                 if report.governing_margin > 1.0 {
-                    { format!(", {} the next limit, {}.", format::times(report.governing_margin), lower_first(notes::limit_title(runner_up))) }
+                    { format!(", {} the next limit, {}.", format::times(report.governing_margin), notes::lower_first(notes::limit_title(runner_up))) }
                 } else {
-                    { format!(", level with {}.", lower_first(notes::limit_title(runner_up))) }
+                    { format!(", level with {}.", notes::lower_first(notes::limit_title(runner_up))) }
                 }
             </p>
             <p class="advice" data-key="advice" data-si={report.advice}>{ format!("To see finer detail: {}", report.advice) }</p>
             <div class="limits">
                 { for Limit::ALL.iter().map(|&limit| {
                     let key = field_of(limit);
-                    let v = match limit {
-                        Limit::Sampling => report.gsd_m,
-                        Limit::Diffraction => report.diffraction_m,
-                        Limit::Turbulence => report.turbulence_m,
-                        Limit::Motion => report.motion_m,
-                    };
+                    let v = state.plan.evaluation.limits.get(limit);
                     let invalid = invalid_inputs(state, key);
                     let is_gov = limit == governing;
                     let share = if report.limit_m > 0.0 { v / report.limit_m } else { 0.0 };
