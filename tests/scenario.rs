@@ -8,6 +8,7 @@ use serde_json::Value;
 use sharpfield::core::contract::inputs::{input, Input, INPUTS, NAME_MAX_CHARS};
 use sharpfield::core::contract::report::{report_for_query, report_json};
 use sharpfield::core::contract::scenario::{AirModel, Offset, RawScenario, Scenario};
+use sharpfield::core::planning::solve::TargetPlane;
 use sharpfield::core::planning::survey::SurveySettings;
 use sharpfield::core::words::units::Units;
 
@@ -70,6 +71,7 @@ const NESTED_NUMBER_KEYS: &[&str] = &[
 /// work, gives `None` beside a note for those).
 const NULLABLE_KEYS: &[&str] = &[
     "r0_m",
+    "need_gsd_m",
     "people_level",
     "need_m",
     "reach",
@@ -407,12 +409,17 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
         prop::collection::vec(any::<char>(), 0..=NAME_MAX_CHARS).prop_map(|c| c.into_iter().collect::<String>()),
         extra_keys(),
     );
-    (optics, air, survey, place).prop_map(
+    let needs = (
+        maybe("needgsd"),
+        prop::option::of(prop::sample::select(&[TargetPlane::Ground, TargetPlane::Upright][..])),
+    );
+    (optics, air, survey, place, needs).prop_map(
         |(
             (sw, sh, cols, rows, focal, fnum, wl, h, offset),
             (air, cn2, cexp, speed, shutter, rate, tspeed),
             (aw, al, fo, so, need, tdim, trig, endur, turn, mb, blur),
             (lat, lon, hdg, units, name, extra),
+            (need_gsd, plane),
         )| Scenario {
             name,
             sensor_width_mm: sw,
@@ -432,6 +439,8 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
             turn_rate_deg_s: rate,
             target_speed_mps: tspeed,
             need_m: need,
+            need_gsd_m: need_gsd,
+            target_plane: plane,
             target_m: tdim,
             survey: SurveySettings {
                 area_width_m: aw,

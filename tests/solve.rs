@@ -6,10 +6,10 @@ mod common;
 
 use proptest::prelude::*;
 use proptest::test_runner::FileFailurePersistence;
-use sharpfield::core::physics::engine::{evaluate, Limit, Setup};
+use sharpfield::core::physics::engine::{evaluate, Evaluation, Limit, Setup};
 use sharpfield::core::physics::geometry::Geometry;
 use sharpfield::core::physics::turbulence::Profile;
-use sharpfield::core::planning::solve::{focal_needed, Axis, Crossing, FocalNeed, Reach, Sweep};
+use sharpfield::core::planning::solve::{focal_needed, Axis, Crossing, FocalNeed, Need, Reach, Sweep, TargetPlane};
 use sharpfield::core::presets::demo;
 use sharpfield::core::words::notes;
 use sharpfield::core::words::units::Units;
@@ -62,8 +62,36 @@ fn bases() -> Vec<(String, Setup)> {
     out
 }
 
+/// The plane a need lies on by default along `axis` (resolution-model §5): the ground from the
+/// air, upright for a fixed camera looking across.
+fn plane(axis: Axis) -> TargetPlane {
+    match axis {
+        Axis::Height => TargetPlane::Ground,
+        Axis::GroundDistance => TargetPlane::Upright,
+    }
+}
+
+/// A need for a detail of `need_m` on `plane`.
+fn detail(need_m: f64, plane: TargetPlane) -> Need {
+    Need {
+        detail_m: Some(need_m),
+        gsd_m: None,
+        plane,
+    }
+}
+
+/// How much longer a figure normal to the view is on `plane`, at this evaluation's look angle.
+fn stretch(e: &Evaluation, plane: TargetPlane) -> f64 {
+    plane.stretch(e.look_angle_deg)
+}
+
+/// The governing limit on `plane`, as a detail need is compared.
+fn on_plane(e: &Evaluation, plane: TargetPlane) -> f64 {
+    e.limit_m * stretch(e, plane)
+}
+
 fn meets(sweep: &Sweep, x: f64, need: f64) -> bool {
-    evaluate(&sweep.setup_at(x)).limit_m <= need
+    on_plane(&evaluate(&sweep.setup_at(x)), plane(sweep.axis)) <= need
 }
 
 /// Fails with `message` unless `condition` holds.
@@ -81,7 +109,8 @@ fn ensure(condition: bool, message: impl FnOnce() -> String) -> Result<(), Strin
 /// domain), naming motion when the smear alone exceeds the need. Returns 0, 1 or 2 for the kind.
 fn check_reach(sweep: &Sweep, need: f64, fine_grid: usize) -> Result<usize, String> {
     let (lo, hi) = sweep.axis.domain();
-    match sweep.reach(need) {
+    let p = plane(sweep.axis);
+    match sweep.reach(&detail(need, p)) {
         Reach::UpTo { position_m, bound_by } => {
             ensure((lo..=hi).contains(&position_m), || {
                 format!("{position_m} outside the domain")
@@ -91,7 +120,9 @@ fn check_reach(sweep: &Sweep, need: f64, fine_grid: usize) -> Result<usize, Stri
             })?;
             ensure(meets(sweep, position_m, need), || format!("fails at {position_m}"))?;
             let beyond = evaluate(&sweep.setup_at(position_m * (1.0 + STEP)));
-            ensure(beyond.limit_m > need, || format!("still met just above {position_m}"))?;
+            ensure(on_plane(&beyond, p) > need, || {
+                format!("still met just above {position_m}")
+            })?;
             ensure(beyond.governing == bound_by, || {
                 format!("names {bound_by:?}, but {:?} governs beyond", beyond.governing)
             })?;
@@ -105,10 +136,10 @@ fn check_reach(sweep: &Sweep, need: f64, fine_grid: usize) -> Result<usize, Stri
         Reach::Nowhere { forbidden_by, best_m } => {
             let closest = evaluate(&sweep.setup_at(lo));
             ensure(!meets(sweep, lo, need), || "met at the near end".into())?;
-            ensure(best_m == closest.limit_m, || {
-                format!("best {best_m}, not {}", closest.limit_m)
+            ensure(best_m == on_plane(&closest, p), || {
+                format!("best {best_m}, not {}", on_plane(&closest, p))
             })?;
-            let motion = closest.limits.motion > need || closest.governing == Limit::Motion;
+            let motion = closest.limits.motion * stretch(&closest, p) > need || closest.governing == Limit::Motion;
             ensure((forbidden_by == Limit::Motion) == motion, || {
                 format!("names {forbidden_by:?} with motion {} m", closest.limits.motion)
             })?;
@@ -126,13 +157,15 @@ fn check_reach(sweep: &Sweep, need: f64, fine_grid: usize) -> Result<usize, Stri
 /// a lens-free limit that exceeds the need even behind a huge lens. Returns 0 or 1 for the kind.
 fn check_focal(base: &Setup, need: f64) -> Result<usize, String> {
     let e = evaluate(base);
-    match focal_needed(&e, base, need) {
+    // The lens does not change the look angle, so the stretch onto the ground is the same for all.
+    let k = stretch(&e, TargetPlane::Ground);
+    match focal_needed(&e, base, &detail(need, TargetPlane::Ground)) {
         FocalNeed::AtLeast { focal_m, bound_by } => {
             let at = evaluate(&Setup { focal_m, ..*base });
-            ensure(at.limit_m <= need * (1.0 + 1e-12), || {
-                format!("{} at f = {focal_m}", at.limit_m)
+            ensure(at.limit_m * k <= need * (1.0 + 1e-12), || {
+                format!("{} at f = {focal_m}", at.limit_m * k)
             })?;
-            let value = at.limits.get(bound_by);
+            let value = at.limits.get(bound_by) * k;
             ensure((value - need).abs() <= 1e-12 * need, || {
                 format!("{bound_by:?} is {value} at f = {focal_m}")
             })?;
@@ -140,26 +173,28 @@ fn check_focal(base: &Setup, need: f64) -> Result<usize, String> {
                 focal_m: focal_m * (1.0 - STEP),
                 ..*base
             });
-            ensure(shorter.limit_m > need, || "a shorter lens also meets the need".into())?;
+            ensure(shorter.limit_m * k > need, || {
+                "a shorter lens also meets the need".into()
+            })?;
             let longer = evaluate(&Setup {
                 focal_m: focal_m * 10.0,
                 ..*base
             });
-            ensure(longer.limit_m <= need, || "a longer lens fails".into())?;
+            ensure(longer.limit_m * k <= need, || "a longer lens fails".into())?;
             Ok(0)
         }
         FocalNeed::Impossible { forbidden_by } => {
             ensure(matches!(forbidden_by, Limit::Turbulence | Limit::Motion), || {
                 format!("{forbidden_by:?} depends on the lens")
             })?;
-            ensure(e.limits.get(forbidden_by) > need, || {
+            ensure(e.limits.get(forbidden_by) * k > need, || {
                 format!("{forbidden_by:?} meets the need")
             })?;
             let huge = evaluate(&Setup {
                 focal_m: base.focal_m * 1e6,
                 ..*base
             });
-            ensure(huge.limit_m > need, || "met with a huge lens".into())?;
+            ensure(huge.limit_m * k > need, || "met with a huge lens".into())?;
             Ok(1)
         }
     }
@@ -272,11 +307,14 @@ fn nowhere_names_motion_when_the_smear_alone_exceeds_the_need() {
         ..demo::pasture_survey().setup()
     };
     for axis in AXES {
-        let reach = Sweep::new(setup, axis).reach(0.05);
+        let sweep = Sweep::new(setup, axis);
+        let reach = sweep.reach(&detail(0.05, plane(axis)));
+        // On the target's plane the smear is stretched at the nearest point of the sweep.
+        let k = stretch(&evaluate(&sweep.setup_at(axis.domain().0)), plane(axis));
         match reach {
             Reach::Nowhere { forbidden_by, best_m } => {
                 assert_eq!(forbidden_by, Limit::Motion, "{axis:?}");
-                assert!((best_m - 0.2).abs() < 1e-12, "{axis:?}: best {best_m}");
+                assert!((best_m - 0.2 * k).abs() < 1e-12, "{axis:?}: best {best_m}");
             }
             other => panic!("{axis:?}: expected Nowhere, got {other:?}"),
         }
@@ -327,7 +365,7 @@ fn focal_needed_of_a_worked_example() {
         turn_rate_rad_s: 0.0,
         target_speed_mps: 0.0,
     };
-    match focal_needed(&evaluate(&setup), &setup, 0.01) {
+    match focal_needed(&evaluate(&setup), &setup, &detail(0.01, TargetPlane::Ground)) {
         FocalNeed::AtLeast { focal_m, bound_by } => {
             assert!((focal_m - 0.048).abs() < 1e-15, "{focal_m}");
             assert_eq!(bound_by, Limit::Sampling);
@@ -339,7 +377,7 @@ fn focal_needed_of_a_worked_example() {
         f_number: 32.0,
         ..setup
     };
-    match focal_needed(&evaluate(&slow), &slow, 0.01) {
+    match focal_needed(&evaluate(&slow), &slow, &detail(0.01, TargetPlane::Ground)) {
         FocalNeed::AtLeast { focal_m, bound_by } => {
             let expected = 1.219_669_891_266_504_5 * 550e-9 * 32.0 * 100.0 / 0.01;
             assert!((focal_m - expected).abs() < 1e-12 * expected, "{focal_m}");
@@ -348,7 +386,7 @@ fn focal_needed_of_a_worked_example() {
         other => panic!("expected AtLeast, got {other:?}"),
     }
     for bad in [0.0, -1.0, f64::NAN] {
-        let answer = focal_needed(&evaluate(&setup), &setup, bad);
+        let answer = focal_needed(&evaluate(&setup), &setup, &detail(bad, TargetPlane::Ground));
         assert!(matches!(answer, FocalNeed::Impossible { .. }), "need {bad}: {answer:?}");
     }
 }

@@ -7,6 +7,7 @@
 //! [`INPUTS`]; adding an input is one entry here plus its use.
 
 use crate::core::contract::scenario::{AirModel, Offset, RawScenario, Scenario, CONTRACT_VERSION};
+use crate::core::planning::solve::TargetPlane;
 use crate::core::words::format::format_number;
 use crate::core::words::units::{EntryUnit, Units, FEET, INCHES, MPH};
 
@@ -42,11 +43,13 @@ pub enum Kind {
         fraction: bool,
         slot: NumberSlot,
     },
-    /// One of a list of words; `words[default]` when left out or not known.
+    /// One of a list of words; `words[default]` when left out or not known (`None`: the scenario
+    /// goes without it, and `unset` says what happens then).
     Choice {
         words: &'static [&'static str],
-        default: usize,
-        get: fn(&Scenario) -> usize,
+        default: Option<usize>,
+        unset: &'static str,
+        get: fn(&Scenario) -> Option<usize>,
         set: fn(&mut Scenario, usize),
     },
 }
@@ -311,8 +314,9 @@ pub const INPUTS: &[Input] = &[
         unit: "",
         kind: Kind::Choice {
             words: &AirModel::WORDS,
-            default: 0,
-            get: |s| s.air as usize,
+            default: Some(0),
+            unset: "",
+            get: |s| Some(s.air as usize),
             set: |s, i| s.air = AirModel::ALL.get(i).copied().unwrap_or_default(),
         },
         ..INPUTS_BASE
@@ -377,12 +381,33 @@ pub const INPUTS: &[Input] = &[
     number("so", "Side overlap", "%", OVERLAP, plain!(survey.side_overlap_pct)).or(65.0),
     number(
         "need",
-        "Required resolution on the ground",
+        "Smallest detail to resolve",
         "m",
         (0.0001, 1000.0),
         optional!(need_m),
     )
     .imperial(INCHES),
+    number(
+        "needgsd",
+        "Required GSD on the target's plane",
+        "m",
+        (0.0001, 1000.0),
+        optional!(need_gsd_m),
+    )
+    .imperial(INCHES),
+    Input {
+        key: "tplane",
+        label: "Target plane",
+        unit: "",
+        kind: Kind::Choice {
+            words: &["ground", "upright"],
+            default: None,
+            unset: "the plane follows the view (the ground from the air, upright for a camera looking across)",
+            get: |s| s.target_plane.map(|p| p as usize),
+            set: |s, i| s.target_plane = [TargetPlane::Ground, TargetPlane::Upright].get(i).copied(),
+        },
+        ..INPUTS_BASE
+    },
     number(
         "tdim",
         "Target critical dimension",
@@ -452,8 +477,9 @@ pub const INPUTS: &[Input] = &[
         unit: "",
         kind: Kind::Choice {
             words: &UNIT_WORDS,
-            default: 0,
-            get: |s| s.units as usize,
+            default: Some(0),
+            unset: "",
+            get: |s| Some(s.units as usize),
             set: |s, i| s.units = Units::ALL.get(i).copied().unwrap_or_default(),
         },
         plural: true,
@@ -605,7 +631,7 @@ impl Input {
             Kind::Version => Some(CONTRACT_VERSION.to_string()),
             Kind::Text { get, .. } => Some(get(scenario).to_string()).filter(|t| !t.is_empty()),
             Kind::Number { slot, .. } => (slot.get)(scenario).map(format_number),
-            Kind::Choice { words, get, .. } => words.get(get(scenario)).map(|w| w.to_string()),
+            Kind::Choice { words, get, .. } => get(scenario).and_then(|i| words.get(i)).map(|w| w.to_string()),
         }
     }
 
@@ -635,7 +661,11 @@ impl Input {
             }
             (
                 Kind::Choice {
-                    words, default, set, ..
+                    words,
+                    default,
+                    unset,
+                    set,
+                    ..
                 },
                 Some(w),
             ) => match words.iter().position(|x| *x == w.trim()) {
@@ -643,11 +673,14 @@ impl Input {
                 None => error(
                     input.key,
                     format!(
-                        "{} '{}' {verb} not known: give {}; {} is used.",
+                        "{} '{}' {verb} not known: give {}; {}.",
                         input.label,
                         clip(w.trim(), 24),
                         input.range_text(),
-                        words.get(default).copied().unwrap_or_default()
+                        match default.and_then(|d| words.get(d)) {
+                            Some(word) => format!("{word} is used"),
+                            None => unset.to_string(),
+                        }
                     ),
                 ),
             },
@@ -681,7 +714,11 @@ impl Input {
             Kind::Number {
                 default: Some(v), slot, ..
             } => (slot.set)(scenario, v),
-            Kind::Choice { default, set, .. } => set(scenario, default),
+            Kind::Choice {
+                default: Some(default),
+                set,
+                ..
+            } => set(scenario, default),
             _ => {}
         }
     }

@@ -2,7 +2,7 @@
 //! sweep for the solves and the chart, the survey and its layout, the GeoJSON export and the
 //! report — so that the page and the printed sheet share one computation per scenario.
 
-use crate::core::contract::report::{solve_axis, Report};
+use crate::core::contract::report::Report;
 use crate::core::contract::scenario::{FieldError, RawScenario, Scenario};
 use crate::core::formats::geojson::{survey_geojson_checked, ExportProblem};
 use crate::core::physics::engine::{evaluate, Evaluation, Setup};
@@ -36,7 +36,7 @@ impl Plan {
     pub fn build(scenario: Scenario, errors: Vec<FieldError>) -> Plan {
         let setup = scenario.setup();
         let evaluation = evaluate(&setup);
-        let sweep = Sweep::new(setup, solve_axis(&scenario));
+        let sweep = Sweep::new(setup, scenario.solve_axis());
         let survey_inputs = scenario.survey_inputs(evaluation.gsd_m);
         let survey = plan_survey(&survey_inputs);
         let layout = layout(&survey, &survey_inputs);

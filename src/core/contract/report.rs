@@ -3,12 +3,14 @@
 //! shows the same values, each tagged with its field name.
 
 use crate::core::contract::plan::Plan;
-use crate::core::contract::scenario::{FieldError, Offset, RawScenario, Scenario, CONTRACT_VERSION};
+use crate::core::contract::scenario::{FieldError, RawScenario, Scenario, CONTRACT_VERSION};
 use crate::core::physics::engine::{Evaluation, Limit, Setup};
 use crate::core::physics::optics;
 use crate::core::physics::target::{people_level, task_chances, PeopleLevel, TaskChance};
 use crate::core::planning::cautions::{self, CautionInputs};
-use crate::core::planning::solve::{focal_needed, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep};
+use crate::core::planning::solve::{
+    focal_needed, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep, TargetPlane,
+};
 use crate::core::planning::survey::SurveyPlan;
 use crate::core::words::notes::{self, CautionWords, SurveyWords};
 use serde::Serialize;
@@ -44,7 +46,18 @@ pub struct Report {
     pub sampling_regime: &'static str,
     /// What the backward solves vary: height (drone) or ground distance (fixed camera).
     pub solve_axis: Axis,
+    /// The smallest detail to resolve on the target's plane (`need`).
     pub need_m: Option<f64>,
+    /// A required GSD on the target's plane (`needgsd`).
+    pub need_gsd_m: Option<f64>,
+    /// The plane the needs are on: `ground` or `upright` (`tplane`, or what the view implies).
+    pub target_plane: TargetPlane,
+    /// How much longer a figure normal to the view is on the target's plane (1/cos θ on the
+    /// ground, 1/sin θ upright; at most 1e6 where the plane is seen edge-on).
+    pub plane_stretch: f64,
+    /// The governing limit and the GSD on the target's plane, as the needs are compared.
+    pub detail_on_plane_m: f64,
+    pub gsd_on_plane_m: f64,
     pub reach: Option<Reach>,
     /// The greatest height or ground distance meeting the need (null when none or unbounded).
     pub reach_m: Option<f64>,
@@ -72,15 +85,6 @@ pub struct Report {
     pub ignored: Vec<String>,
 }
 
-/// The axis the backward solves use: a fixed camera looking across at a target some distance off
-/// solves for ground distance; a camera looking down or tilted solves for height.
-pub(crate) fn solve_axis(scenario: &Scenario) -> Axis {
-    match scenario.offset {
-        Offset::GroundDistance(g) if g > 0.0 => Axis::GroundDistance,
-        _ => Axis::Height,
-    }
-}
-
 impl Report {
     /// The report of a validated scenario from its engine setup, evaluation, sweep and survey plan.
     pub fn new(
@@ -91,12 +95,14 @@ impl Report {
         survey: &SurveyPlan,
         errors: Vec<FieldError>,
     ) -> Report {
-        let reach = scenario.need_m.map(|need| sweep.reach(need));
+        let need = scenario.need();
+        let plane_stretch = need.plane.stretch(e.look_angle_deg);
+        let reach = need.is_given().then(|| sweep.reach(&need));
         let reach_m = match reach {
             Some(Reach::UpTo { position_m, .. }) => Some(position_m),
             _ => None,
         };
-        let focal = scenario.need_m.map(|need| focal_needed(e, setup, need));
+        let focal = need.is_given().then(|| focal_needed(e, setup, &need));
         let focal_needed_m = match focal {
             Some(FocalNeed::AtLeast { focal_m, .. }) => Some(focal_m),
             _ => None,
@@ -143,6 +149,11 @@ impl Report {
             sampling_regime: notes::sampling_regime(optics::sampling_regime(e.q)),
             solve_axis: sweep.axis,
             need_m: scenario.need_m,
+            need_gsd_m: scenario.need_gsd_m,
+            target_plane: need.plane,
+            plane_stretch,
+            detail_on_plane_m: e.limit_m * plane_stretch,
+            gsd_on_plane_m: e.gsd_m * plane_stretch,
             reach,
             reach_m,
             focal_needed: focal,

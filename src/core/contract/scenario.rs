@@ -12,6 +12,7 @@ use crate::core::contract::inputs::INPUTS;
 use crate::core::physics::engine::Setup;
 use crate::core::physics::geometry::Geometry;
 use crate::core::physics::turbulence::Profile;
+use crate::core::planning::solve::{Axis, Need, TargetPlane};
 use crate::core::planning::survey::{SurveyInputs, SurveySettings};
 use crate::core::words::units::Units;
 use serde::Serialize;
@@ -145,6 +146,10 @@ pub struct Scenario {
     pub target_speed_mps: f64,
     pub shutter_s: f64,
     pub need_m: Option<f64>,
+    /// A required GSD on the target's plane (`needgsd`).
+    pub need_gsd_m: Option<f64>,
+    /// The plane the target lies in (`tplane`); `None` follows the view.
+    pub target_plane: Option<TargetPlane>,
     pub target_m: Option<f64>,
     /// The survey keys.
     pub survey: SurveySettings,
@@ -259,6 +264,33 @@ impl Scenario {
             exposure_s: self.shutter_s,
             turn_rate_rad_s: self.turn_rate_deg_s.to_radians(),
             target_speed_mps: self.target_speed_mps,
+        }
+    }
+
+    /// The axis the backward solves use: a fixed camera looking across at a target some distance
+    /// off solves for ground distance; a camera looking down or tilted solves for height.
+    pub fn solve_axis(&self) -> Axis {
+        match self.offset {
+            Offset::GroundDistance(g) if g > 0.0 => Axis::GroundDistance,
+            _ => Axis::Height,
+        }
+    }
+
+    /// The plane the target lies in: as given, or the ground when the camera is in the air (looking
+    /// down or tilted) and upright for a fixed camera looking across (resolution-model §5).
+    pub fn target_plane(&self) -> TargetPlane {
+        self.target_plane.unwrap_or(match self.solve_axis() {
+            Axis::Height => TargetPlane::Ground,
+            Axis::GroundDistance => TargetPlane::Upright,
+        })
+    }
+
+    /// What the images must show, on the target's plane.
+    pub fn need(&self) -> Need {
+        Need {
+            detail_m: self.need_m,
+            gsd_m: self.need_gsd_m,
+            plane: self.target_plane(),
         }
     }
 

@@ -116,9 +116,9 @@ impl Sweep {
         (lo, hi)
     }
 
-    /// The greatest position along the axis at which the governing limit is at most `need_m`.
-    pub fn reach(&self, need_m: f64) -> Reach {
-        let meets = |e: &Evaluation| e.limit_m <= need_m;
+    /// The greatest position along the axis at which `need` is met.
+    pub fn reach(&self, need: &Need) -> Reach {
+        let meets = |e: &Evaluation| need.meets(e);
         let first = match self.table.first() {
             Some((_, evaluation)) => *evaluation,
             None => {
@@ -130,15 +130,10 @@ impl Sweep {
         };
         match self.table.iter().rposition(|(_, e)| meets(e)) {
             None => {
-                // Motion does not depend on the geometry, so name it first when it alone is too large.
-                let forbidden_by = if first.limits.motion > need_m {
-                    Limit::Motion
-                } else {
-                    first.governing
-                };
+                let forbidden_by = need.failing_limit(&first);
                 Reach::Nowhere {
                     forbidden_by,
-                    best_m: first.limit_m,
+                    best_m: need.best_figure(&first),
                 }
             }
             Some(i) if i + 1 == self.table.len() => Reach::Everywhere {
@@ -149,7 +144,7 @@ impl Sweep {
                 let beyond = evaluate(&self.setup_at(x * (1.0 + 1e-6)));
                 Reach::UpTo {
                     position_m: x,
-                    bound_by: beyond.governing,
+                    bound_by: need.failing_limit(&beyond),
                 }
             }
         }
@@ -202,6 +197,81 @@ impl Sweep {
             }
         }
         changes
+    }
+}
+
+/// The plane the target's detail lies in (resolution-model §5).
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum TargetPlane {
+    /// Flat features on the ground (cracks, seedlings): an oblique look stretches the along-view
+    /// figure by 1/cos θ.
+    #[default]
+    Ground,
+    /// People, vehicles and posts standing upright and facing the camera: the vertical figure is
+    /// stretched by 1/cos ε = 1/sin θ.
+    Upright,
+}
+
+impl TargetPlane {
+    /// How much longer a figure in the plane normal to the view is on this plane, for a look angle
+    /// θ from straight down (plain geometry); at most 1e6 where the plane is seen edge-on.
+    pub fn stretch(self, look_angle_deg: f64) -> f64 {
+        let theta = if look_angle_deg.is_finite() {
+            look_angle_deg.to_radians()
+        } else {
+            0.0
+        };
+        let cosine = match self {
+            TargetPlane::Ground => theta.cos(),
+            TargetPlane::Upright => theta.sin(),
+        };
+        1.0 / cosine.abs().max(1e-6)
+    }
+}
+
+/// What the images must show, on the target's plane: the smallest detail to resolve (a
+/// separation, compared with the governing limit) and a required GSD; each optional, both met
+/// when both are given.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Need {
+    pub detail_m: Option<f64>,
+    pub gsd_m: Option<f64>,
+    pub plane: TargetPlane,
+}
+
+impl Need {
+    /// Whether an evaluation meets every part of the need.
+    pub fn meets(&self, e: &Evaluation) -> bool {
+        let k = self.plane.stretch(e.look_angle_deg);
+        self.detail_m.is_none_or(|d| e.limit_m * k <= d) && self.gsd_m.is_none_or(|g| e.gsd_m * k <= g)
+    }
+
+    /// The limit that keeps an evaluation from the need: for the detail, motion when it alone is
+    /// too large (it is the one that does not shrink close in), else the governing limit; for the
+    /// GSD, sampling.
+    fn failing_limit(&self, e: &Evaluation) -> Limit {
+        let k = self.plane.stretch(e.look_angle_deg);
+        match self.detail_m {
+            Some(d) if e.limits.motion * k > d => Limit::Motion,
+            Some(d) if e.limit_m * k > d => e.governing,
+            _ => Limit::Sampling,
+        }
+    }
+
+    /// The finest figure on the target's plane that an evaluation gives for the failing part of
+    /// the need: the governing limit for a detail, the GSD for a GSD.
+    fn best_figure(&self, e: &Evaluation) -> f64 {
+        let k = self.plane.stretch(e.look_angle_deg);
+        match self.detail_m {
+            Some(d) if e.limit_m * k > d || self.gsd_m.is_none() => e.limit_m * k,
+            _ => e.gsd_m * k,
+        }
+    }
+
+    /// Whether anything is asked for.
+    pub fn is_given(&self) -> bool {
+        self.detail_m.is_some() || self.gsd_m.is_some()
     }
 }
 
@@ -260,37 +330,53 @@ pub enum FocalNeed {
 }
 
 /// Closed form: GSD and the Rayleigh distance both scale as 1/f at a fixed f-number
-/// (resolution-model §1–§2), while seeing and motion do not depend on the lens.
-pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need_m: f64) -> FocalNeed {
-    if need_m.is_nan() || need_m <= 0.0 {
-        return FocalNeed::Impossible {
+/// (resolution-model §1–§2), while seeing and motion do not depend on the lens. Each part of the
+/// need asks for a focal length; the longest is needed.
+pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need: &Need) -> FocalNeed {
+    let k = need.plane.stretch(evaluation.look_angle_deg);
+    let range = evaluation.slant_range_m * k;
+    let mut best: Option<(f64, Limit)> = None;
+    let mut consider = |focal_m: f64, limit: Limit| {
+        if best.is_none_or(|(f, _)| focal_m > f) {
+            best = Some((focal_m, limit));
+        }
+    };
+    if let Some(d) = need.detail_m {
+        if d.is_nan() || d <= 0.0 {
+            return FocalNeed::Impossible {
+                forbidden_by: evaluation.governing,
+            };
+        }
+        let lens_free = [
+            (Limit::Turbulence, evaluation.limits.turbulence),
+            (Limit::Motion, evaluation.limits.motion),
+        ];
+        if let Some((limit, _)) = lens_free
+            .iter()
+            .filter(|(_, v)| v * k > d)
+            .max_by(|a, b| a.1.total_cmp(&b.1))
+        {
+            return FocalNeed::Impossible { forbidden_by: *limit };
+        }
+        // The sampling limit is 2·GSD = 2·p·R/f (resolution-model §5).
+        consider(2.0 * setup.pixel_pitch_m() * range / d, Limit::Sampling);
+        consider(
+            RAYLEIGH_FACTOR * setup.wavelength_m * setup.f_number * range / d,
+            Limit::Diffraction,
+        );
+    }
+    if let Some(g) = need.gsd_m {
+        if g.is_nan() || g <= 0.0 {
+            return FocalNeed::Impossible {
+                forbidden_by: Limit::Sampling,
+            };
+        }
+        consider(setup.pixel_pitch_m() * range / g, Limit::Sampling);
+    }
+    match best {
+        Some((focal_m, bound_by)) if focal_m.is_finite() => FocalNeed::AtLeast { focal_m, bound_by },
+        _ => FocalNeed::Impossible {
             forbidden_by: evaluation.governing,
-        };
-    }
-    let lens_free = [
-        (Limit::Turbulence, evaluation.limits.turbulence),
-        (Limit::Motion, evaluation.limits.motion),
-    ];
-    if let Some((limit, _)) = lens_free
-        .iter()
-        .filter(|(_, v)| *v > need_m)
-        .max_by(|a, b| a.1.total_cmp(&b.1))
-    {
-        return FocalNeed::Impossible { forbidden_by: *limit };
-    }
-    let range = evaluation.slant_range_m;
-    // The sampling limit is 2·GSD = 2·p·R/f (resolution-model §5).
-    let for_sampling = 2.0 * setup.pixel_pitch_m() * range / need_m;
-    let for_diffraction = RAYLEIGH_FACTOR * setup.wavelength_m * setup.f_number * range / need_m;
-    if for_sampling >= for_diffraction {
-        FocalNeed::AtLeast {
-            focal_m: for_sampling,
-            bound_by: Limit::Sampling,
-        }
-    } else {
-        FocalNeed::AtLeast {
-            focal_m: for_diffraction,
-            bound_by: Limit::Diffraction,
-        }
+        },
     }
 }

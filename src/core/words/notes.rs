@@ -5,7 +5,7 @@ use crate::core::physics::engine::Limit;
 use crate::core::physics::optics::SamplingRegime;
 use crate::core::physics::target::{PeopleLevel, Task};
 use crate::core::planning::cautions::Caution;
-use crate::core::planning::solve::{Axis, Reach};
+use crate::core::planning::solve::{Axis, Need, Reach, TargetPlane};
 use crate::core::planning::survey::{
     AreaSide, OverlapAdvice, OverlapClass, OverlapSide, SpeedFlag, SurveyNote, SurveyPlan, MAX_LINES, MAX_PHOTOS,
 };
@@ -74,6 +74,26 @@ pub fn axis_noun(axis: Axis) -> &'static str {
         Axis::Height => "height",
         Axis::GroundDistance => "ground distance",
     }
+}
+
+/// The plane a need is on, in a few words.
+pub fn plane(plane: TargetPlane) -> &'static str {
+    match plane {
+        TargetPlane::Ground => "on the ground",
+        TargetPlane::Upright => "on an upright target facing the camera",
+    }
+}
+
+/// What the needs ask for, as the subject of a sentence: "A detail of 3 cm and a GSD of 2 cm on
+/// the ground"; `None` when nothing is asked.
+pub fn need_text(need: &Need, units: Units) -> Option<String> {
+    let parts = match (need.detail_m, need.gsd_m) {
+        (Some(d), Some(g)) => format!("A detail of {} and a GSD of {}", length(d, units), length(g, units)),
+        (Some(d), None) => format!("A detail of {}", length(d, units)),
+        (None, Some(g)) => format!("A GSD of {}", length(g, units)),
+        (None, None) => return None,
+    };
+    Some(format!("{parts} {}", plane(need.plane)))
 }
 
 /// The reach in one plain sentence, lengths in `units`.

@@ -310,10 +310,26 @@ pub fn need_group(props: &InputsProps) -> Html {
         .map(|p| (p.0.to_string(), p.1.to_string()))
         .collect();
     items.push(("custom".into(), "Another target (enter its size)".into()));
+    let plane = match state.text("tplane").trim() {
+        "ground" => "ground",
+        "upright" => "upright",
+        _ => "auto",
+    };
+    let planes = [
+        ("auto", "Follow the view (ground from the air, upright across)"),
+        ("ground", "On the ground (cracks, seedlings, markings)"),
+        ("upright", "Upright, facing the camera (people, vehicles, posts)"),
+    ]
+    .map(|(v, l)| (v.to_string(), l.to_string()));
+    let on_plane = props.dispatch.reform(|word: String| match word.as_str() {
+        "ground" | "upright" => Action::set("tplane", word),
+        _ => Action::Remove("tplane".into()),
+    });
     html! {
         <fieldset class="group" id="group-need">
             <legend>{ "What you need to see" }</legend>
-            { field(props, "need", length_hint(props, "need")) }
+            { pair(field(props, "need", length_hint(props, "need")), field(props, "needgsd", length_hint(props, "needgsd"))) }
+            <Choice id="target-plane" label="On the target's plane" options={options(planes)} selected={plane} on_change={on_plane} />
             <Choice id="target-preset" label="Target" options={options(items)} selected={selected} {on_change} />
             { field(props, "tdim", length_hint(props, "tdim")) }
         </fieldset>

@@ -119,10 +119,8 @@ pub fn print_sheet(props: &PrintProps) -> Html {
     let c = &props.chart;
     let qr = &props.qr;
     let inputs = input_rows(plan);
-    let reach = match (r.need_m, r.reach) {
-        (Some(need), Some(reach)) => {
-            notes::reach(&reach, plan.sweep.axis, &format!("A detail of {}", len(need)), units)
-        }
+    let reach = match (notes::need_text(&s.need(), units), r.reach) {
+        (Some(need_text), Some(reach)) => notes::reach(&reach, plan.sweep.axis, &need_text, units),
         _ => match props.state.error("need") {
             Some(message) => format!("The required resolution was rejected: {message}"),
             None => "No required resolution was set.".to_string(),

@@ -119,6 +119,8 @@ pub fn results(props: &ResultsProps) -> Html {
             <dl class="figures">
                 <dt>{ "Sampling ratio Q = λN/p" }</dt>
                 <dd>{ value("q", report.q, format::significant(report.q)) }{ format!(" — {}", report.sampling_regime) }</dd>
+                <dt>{ format!("Detail and GSD {}", notes::plane(report.target_plane)) }</dt>
+                <dd>{ value("detail_on_plane_m", report.detail_on_plane_m, format::length(report.detail_on_plane_m, units)) }{ ", GSD " }{ value("gsd_on_plane_m", report.gsd_on_plane_m, format::length(report.gsd_on_plane_m, units)) }</dd>
                 <dt>{ "Ground-plane GSD along the view" }</dt>
                 <dd>{ value("gsd_ground_m", report.gsd_ground_m, format::length(report.gsd_ground_m, units)) }</dd>
                 <dt>{ "Motion smear" }</dt>

@@ -45,9 +45,9 @@ pub fn solve_panel(props: &SolveProps) -> Html {
     let units = plan.scenario.units;
     let axis = plan.sweep.axis;
     let length = move |m: f64| format::length(m, units);
-    let need_block = match (report.need_m, report.reach, report.focal_needed) {
-        (Some(need), Some(reach), Some(focal)) => {
-            let need_text = format!("A detail of {}", length(need));
+    let need_text = notes::need_text(&plan.scenario.need(), units);
+    let need_block = match (need_text, report.reach, report.focal_needed) {
+        (Some(need_text), Some(reach), Some(focal)) => {
             let reach_html = match reach {
                 Reach::UpTo { position_m, .. } => value("reach_m", position_m, length(position_m)),
                 _ => html! {},
@@ -71,7 +71,7 @@ pub fn solve_panel(props: &SolveProps) -> Html {
             </> }
         }
         _ => {
-            html! { <p>{ "Enter a required resolution under “What you need to see” to get the greatest height or range and the lens that would do." }</p> }
+            html! { <p>{ "Enter the smallest detail or a required GSD under “What you need to see” to get the greatest height or range and the lens that would do." }</p> }
         }
     };
     html! {
