@@ -108,3 +108,37 @@ fn an_unknown_plane_is_named_and_the_view_decides() {
     assert!(error.message.contains("follows the view"), "{}", error.message);
     assert_eq!(r.target_plane, TargetPlane::Ground);
 }
+
+#[test]
+fn task_ranges_put_the_chance_at_50_and_80_percent() {
+    // At each returned range the cycles across a 0.75 m person, dimension ÷ period on the plane,
+    // equal N50 (50 %) and N50 · 1.452104 (80 %, resolution-model §6): re-evaluated there.
+    for query in [
+        "sw=6.17&sh=4.55&cols=4000&rows=3000&focal=100&fnum=4&h=8&gd=1500&tdim=0.75&air=none",
+        "sw=6.17&sh=4.55&cols=4000&rows=3000&focal=100&fnum=4&h=8&gd=1500&tdim=0.75&air=power&cn2=1e-13",
+        "sw=13.2&sh=8.8&cols=5472&rows=3648&focal=8.8&fnum=4&h=80&tdim=0.75&cdm=1d",
+    ] {
+        let r = report_for_query(query);
+        assert_eq!(r.task_ranges.len(), 3, "{query}");
+        for range in &r.task_ranges {
+            for (position, ratio) in [(range.p50_m, 1.0), (range.p80_m, 1.452104)] {
+                let Some(x) = position else { continue };
+                let at = if query.contains("gd=") {
+                    report_for_query(&format!("{query}&gd={x}").replacen("gd=1500&", "", 1))
+                } else {
+                    report_for_query(&format!("{query}&h={x}").replacen("h=80&", "", 1))
+                };
+                let cycles = at.target_cycles.expect("a target");
+                close(
+                    cycles,
+                    range.cycles_needed * ratio,
+                    1e-5,
+                    &format!("{query}: {:?}", range.task),
+                );
+            }
+            if let (Some(a), Some(b)) = (range.p50_m, range.p80_m) {
+                assert!(b < a, "80 % is reached closer in than 50 %");
+            }
+        }
+    }
+}

@@ -8,6 +8,7 @@ use serde_json::Value;
 use sharpfield::core::contract::inputs::{input, Input, INPUTS, NAME_MAX_CHARS};
 use sharpfield::core::contract::report::{report_for_query, report_json};
 use sharpfield::core::contract::scenario::{AirModel, Offset, RawScenario, Scenario};
+use sharpfield::core::physics::target::CdModel;
 use sharpfield::core::planning::solve::TargetPlane;
 use sharpfield::core::planning::survey::SurveySettings;
 use sharpfield::core::words::units::Units;
@@ -73,6 +74,8 @@ const NULLABLE_KEYS: &[&str] = &[
     "r0_m",
     "need_gsd_m",
     "people_level",
+    "p50_m",
+    "p80_m",
     "need_m",
     "reach",
     "reach_m",
@@ -412,6 +415,7 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
     let needs = (
         maybe("needgsd"),
         prop::option::of(prop::sample::select(&[TargetPlane::Ground, TargetPlane::Upright][..])),
+        prop::sample::select(&[CdModel::OneD, CdModel::TwoD][..]),
     );
     (optics, air, survey, place, needs).prop_map(
         |(
@@ -419,7 +423,7 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
             (air, cn2, cexp, speed, shutter, rate, tspeed),
             (aw, al, fo, so, need, tdim, trig, endur, turn, mb, blur),
             (lat, lon, hdg, units, name, extra),
-            (need_gsd, plane),
+            (need_gsd, plane, cdm),
         )| Scenario {
             name,
             sensor_width_mm: sw,
@@ -442,6 +446,7 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
             need_gsd_m: need_gsd,
             target_plane: plane,
             target_m: tdim,
+            cd_model: cdm,
             survey: SurveySettings {
                 area_width_m: aw,
                 area_length_m: al,

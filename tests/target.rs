@@ -4,7 +4,7 @@
 //! 1958 (AD220160) for the cycles; the TTPF P = (N/N50)^E / (1 + (N/N50)^E), E = 2.7 + 0.7·N/N50,
 //! with its published checks 0.107734, 0.944899 and P = 0.8 at N/N50 = 1.452104.
 
-use sharpfield::core::physics::target::{self, Task};
+use sharpfield::core::physics::target::{self, CdModel, Task};
 
 fn check(case: &str, actual: f64, expected: f64, tolerance: f64) {
     assert!(
@@ -106,7 +106,7 @@ fn cycles_across_a_target() {
 #[test]
 fn task_chances_follow_the_ttpf_for_each_task() {
     // A person's 0.75 m (from memory; resolution-model §6) under a 10 cm period: 7.5 cycles.
-    let (n, chances) = target::task_chances(0.75, 0.1);
+    let (n, chances) = target::task_chances(0.75, 0.1, CdModel::OneD);
     check("cycles", n, 7.5, 1e-12);
     assert_eq!(chances.len(), 4);
     for (chance, task) in chances.iter().zip(Task::ALL) {
@@ -119,7 +119,7 @@ fn task_chances_follow_the_ttpf_for_each_task() {
         );
     }
     // Identification at exactly N50 = 6.4 cycles is the 50 % point.
-    let (_, at_n50) = target::task_chances(0.75, 0.75 / 6.4);
+    let (_, at_n50) = target::task_chances(0.75, 0.75 / 6.4, CdModel::OneD);
     check("P(identification) at N50", at_n50[3].probability, 0.5, 1e-12);
 }
 
@@ -142,4 +142,31 @@ fn pixel_density_levels_for_watching_people() {
     for (px, level) in cases {
         assert_eq!(target::people_level(px), level, "{px} px/m");
     }
+}
+
+#[test]
+fn the_ttpf_inverse_meets_the_published_points() {
+    // resolution-model §6: P = 0.8 at N/N50 = 1.452104 and 0.95 at 2.040548; 50 % at 1.
+    for (p, ratio) in [(0.5, 1.0), (0.8, 1.452104), (0.95, 2.040548)] {
+        let r = target::ratio_for(p);
+        assert!((r - ratio).abs() < 5e-7, "P = {p}: {r} vs {ratio}");
+        assert!((target::ttpf(r) - p).abs() < 1e-12, "P = {p}");
+    }
+    assert!(target::ratio_for(1.0).is_nan() && target::ratio_for(0.0).is_nan());
+}
+
+#[test]
+fn each_critical_dimension_model_keeps_its_own_n50_set() {
+    // 1-D: Johnson (1958) 1.0, 1.4, 4.0, 6.4. 2-D (√area): about 0.75, 3.0, 6.0 (from memory;
+    // resolution-model §6), without an orientation figure.
+    let one: Vec<_> = Task::ALL.iter().map(|&t| CdModel::OneD.n50(t)).collect();
+    assert_eq!(one, [Some(1.0), Some(1.4), Some(4.0), Some(6.4)]);
+    let two: Vec<_> = Task::ALL.iter().map(|&t| CdModel::TwoD.n50(t)).collect();
+    assert_eq!(two, [Some(0.75), None, Some(3.0), Some(6.0)]);
+    let (_, chances) = target::task_chances(0.75, 0.75 / 6.0, CdModel::TwoD);
+    assert_eq!(chances.len(), 3);
+    assert!(
+        (chances[2].probability - 0.5).abs() < 1e-12,
+        "identification at its N50"
+    );
 }

@@ -7,6 +7,7 @@
 //! [`INPUTS`]; adding an input is one entry here plus its use.
 
 use crate::core::contract::scenario::{AirModel, Offset, RawScenario, Scenario, CONTRACT_VERSION};
+use crate::core::physics::target::CdModel;
 use crate::core::planning::solve::TargetPlane;
 use crate::core::words::format::format_number;
 use crate::core::words::units::{EntryUnit, Units, FEET, INCHES, MPH};
@@ -416,6 +417,19 @@ pub const INPUTS: &[Input] = &[
         optional!(target_m),
     )
     .imperial(FEET),
+    Input {
+        key: "cdm",
+        label: "Critical-dimension model",
+        unit: "",
+        kind: Kind::Choice {
+            words: &["1d", "2d"],
+            default: Some(1),
+            unset: "",
+            get: |s| Some(s.cd_model as usize),
+            set: |s, i| s.cd_model = [CdModel::OneD, CdModel::TwoD].get(i).copied().unwrap_or_default(),
+        },
+        ..INPUTS_BASE
+    },
     number(
         "trig",
         "Shortest interval between photos",

@@ -6,10 +6,10 @@ use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::{FieldError, RawScenario, Scenario, CONTRACT_VERSION};
 use crate::core::physics::engine::{Evaluation, Limit, Setup};
 use crate::core::physics::optics;
-use crate::core::physics::target::{people_level, task_chances, PeopleLevel, TaskChance};
+use crate::core::physics::target::{people_level, task_chances, CdModel, PeopleLevel, TaskChance};
 use crate::core::planning::cautions::{self, CautionInputs};
 use crate::core::planning::solve::{
-    focal_needed, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep, TargetPlane,
+    focal_needed, task_ranges, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep, TargetPlane, TaskRange,
 };
 use crate::core::planning::survey::SurveyPlan;
 use crate::core::words::notes::{self, CautionWords, SurveyWords};
@@ -69,6 +69,11 @@ pub struct Report {
     pub target_m: Option<f64>,
     pub target_cycles: Option<f64>,
     pub target_chances: Vec<TaskChance>,
+    /// The critical-dimension model the chances and ranges use (`1d` or `2d`).
+    pub cdm: CdModel,
+    /// Detection, recognition and identification: the greatest height or ground distance for
+    /// 50 % and 80 %.
+    pub task_ranges: Vec<TaskRange>,
     /// Whether a stranger could be identified (IEC 62676-4 identification, 250 px/m).
     pub identifies_people: bool,
     /// Pixels per metre on the target, 1/GSD in the plane normal to the view.
@@ -98,10 +103,11 @@ impl Report {
         let need = scenario.need();
         let plane_stretch = need.plane.stretch(e.look_angle_deg);
         let reach = need.is_given().then(|| sweep.reach(&need));
-        let reach_m = match reach {
-            Some(Reach::UpTo { position_m, .. }) => Some(position_m),
-            _ => None,
-        };
+        let reach_m = reach.and_then(|r| r.position_m());
+        let task_ranges = scenario
+            .target_m
+            .map(|t| task_ranges(sweep, t, need.plane, scenario.cd_model))
+            .unwrap_or_default();
         let focal = need.is_given().then(|| focal_needed(e, setup, &need));
         let focal_needed_m = match focal {
             Some(FocalNeed::AtLeast { focal_m, .. }) => Some(focal_m),
@@ -109,7 +115,7 @@ impl Report {
         };
         let (target_cycles, target_chances) = match scenario.target_m {
             Some(t) => {
-                let (n, chances) = task_chances(t, e.limit_m);
+                let (n, chances) = task_chances(t, e.limit_m * plane_stretch, scenario.cd_model);
                 (Some(n), chances)
             }
             None => (None, Vec::new()),
@@ -164,6 +170,8 @@ impl Report {
             target_m: scenario.target_m,
             target_cycles,
             target_chances,
+            cdm: scenario.cd_model,
+            task_ranges,
             identifies_people: people == Some(PeopleLevel::Identification),
             px_per_m,
             people_level: people,

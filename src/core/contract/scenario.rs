@@ -11,6 +11,7 @@
 use crate::core::contract::inputs::INPUTS;
 use crate::core::physics::engine::Setup;
 use crate::core::physics::geometry::Geometry;
+use crate::core::physics::target::CdModel;
 use crate::core::physics::turbulence::Profile;
 use crate::core::planning::solve::{Axis, Need, TargetPlane};
 use crate::core::planning::survey::{SurveyInputs, SurveySettings};
@@ -151,6 +152,8 @@ pub struct Scenario {
     /// The plane the target lies in (`tplane`); `None` follows the view.
     pub target_plane: Option<TargetPlane>,
     pub target_m: Option<f64>,
+    /// How the target's critical dimension is taken (`cdm`).
+    pub cd_model: CdModel,
     /// The survey keys.
     pub survey: SurveySettings,
     pub units: Units,

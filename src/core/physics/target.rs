@@ -36,6 +36,52 @@ impl Task {
     }
 }
 
+/// How the critical dimension of a target is taken, each with its own N50 set (resolution-model §6).
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Serialize)]
+pub enum CdModel {
+    /// Johnson's one-dimensional criteria on the target's smaller dimension.
+    #[serde(rename = "1d")]
+    OneD,
+    /// Two-dimensional models on √(visible area).
+    #[default]
+    #[serde(rename = "2d")]
+    TwoD,
+}
+
+impl CdModel {
+    /// Cycles across the critical dimension for a 50 % chance of `task`, or `None` where the model
+    /// gives none. 1-D: Johnson (1958). 2-D: about 0.75, 3.0 and 6.0 (from memory; resolution-model
+    /// §6), with no orientation figure.
+    pub fn n50(self, task: Task) -> Option<f64> {
+        match self {
+            CdModel::OneD => Some(task.n50()),
+            CdModel::TwoD => match task {
+                Task::Detection => Some(0.75),
+                Task::Orientation => None,
+                Task::Recognition => Some(3.0),
+                Task::Identification => Some(6.0),
+            },
+        }
+    }
+}
+
+/// The ratio N/N50 at which the TTPF reaches `probability` (0 < p < 1), by bisection; 1 at 50 %.
+pub fn ratio_for(probability: f64) -> f64 {
+    if !(probability > 0.0 && probability < 1.0) {
+        return f64::NAN;
+    }
+    let (mut lo, mut hi) = (0.0f64, 100.0f64);
+    for _ in 0..200 {
+        let mid = 0.5 * (lo + hi);
+        if ttpf(mid) < probability {
+            lo = mid;
+        } else {
+            hi = mid;
+        }
+    }
+    0.5 * (lo + hi)
+}
+
 /// Target transfer probability function P(N/N50).
 pub fn ttpf(cycles_ratio: f64) -> f64 {
     if cycles_ratio == f64::INFINITY {
@@ -80,15 +126,19 @@ pub struct TaskChance {
     pub probability: f64,
 }
 
-/// The chances of all four tasks for a target of `critical_dimension_m` under `limit_m`.
-pub fn task_chances(critical_dimension_m: f64, limit_m: f64) -> (f64, Vec<TaskChance>) {
+/// The chances of each task that `model` rates, for a target of `critical_dimension_m` under a
+/// resolvable period `limit_m`.
+pub fn task_chances(critical_dimension_m: f64, limit_m: f64, model: CdModel) -> (f64, Vec<TaskChance>) {
     let n = cycles_across(critical_dimension_m, limit_m);
     let chances = Task::ALL
         .iter()
-        .map(|&task| TaskChance {
-            task,
-            cycles_needed: task.n50(),
-            probability: ttpf(n / task.n50()),
+        .filter_map(|&task| {
+            let n50 = model.n50(task)?;
+            Some(TaskChance {
+                task,
+                cycles_needed: n50,
+                probability: ttpf(n / n50),
+            })
         })
         .collect();
     (n, chances)

@@ -8,6 +8,7 @@
 use crate::core::physics::engine::{evaluate, Evaluation, Limit, Setup};
 use crate::core::physics::geometry::Geometry;
 use crate::core::physics::optics::RAYLEIGH_FACTOR;
+use crate::core::physics::target::{ratio_for, CdModel, Task};
 use serde::Serialize;
 
 /// What the backward solve varies.
@@ -287,6 +288,16 @@ pub enum Reach {
     Nowhere { forbidden_by: Limit, best_m: f64 },
 }
 
+impl Reach {
+    /// The bounded position, if any.
+    pub fn position_m(&self) -> Option<f64> {
+        match self {
+            Reach::UpTo { position_m, .. } => Some(*position_m),
+            _ => None,
+        }
+    }
+}
+
 /// Where two limits cross along the axis.
 #[derive(Clone, Copy, Debug, PartialEq, Serialize)]
 #[serde(tag = "kind", rename_all = "snake_case")]
@@ -379,4 +390,47 @@ pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need: &Need) -> Foca
             forbidden_by: evaluation.governing,
         },
     }
+}
+
+/// The greatest height or ground distance at which one task reaches 50 % and 80 %.
+#[derive(Clone, Copy, Debug, PartialEq, Serialize)]
+pub struct TaskRange {
+    pub task: Task,
+    /// Cycles for 50 % under the chosen critical-dimension model.
+    pub cycles_needed: f64,
+    pub p50: Reach,
+    pub p80: Reach,
+    /// The positions of `p50` and `p80` when bounded (null when met everywhere or nowhere).
+    pub p50_m: Option<f64>,
+    pub p80_m: Option<f64>,
+}
+
+/// The greatest position for detection, recognition and identification of a target of
+/// `critical_dimension_m` on `plane`, at 50 % and 80 %: the chance reaches p where the cycles
+/// across it, dimension ÷ period on the plane, reach N50·r(p), r(p) the TTPF's inverse
+/// (resolution-model §6); so each is a reach for a detail of dimension ÷ (N50·r(p)).
+pub fn task_ranges(sweep: &Sweep, critical_dimension_m: f64, plane: TargetPlane, model: CdModel) -> Vec<TaskRange> {
+    let r80 = ratio_for(0.8);
+    [Task::Detection, Task::Recognition, Task::Identification]
+        .into_iter()
+        .filter_map(|task| {
+            let n50 = model.n50(task)?;
+            let reach_for = |ratio: f64| {
+                sweep.reach(&Need {
+                    detail_m: Some(critical_dimension_m / (n50 * ratio)),
+                    gsd_m: None,
+                    plane,
+                })
+            };
+            let (p50, p80) = (reach_for(1.0), reach_for(r80));
+            Some(TaskRange {
+                task,
+                cycles_needed: n50,
+                p50,
+                p80,
+                p50_m: p50.position_m(),
+                p80_m: p80.position_m(),
+            })
+        })
+        .collect()
 }

@@ -310,6 +310,12 @@ pub fn need_group(props: &InputsProps) -> Html {
         .map(|p| (p.0.to_string(), p.1.to_string()))
         .collect();
     items.push(("custom".into(), "Another target (enter its size)".into()));
+    let models = [
+        ("2d", "√(visible area), 2-D criteria"),
+        ("1d", "Smaller dimension, Johnson 1-D"),
+    ]
+    .map(|(v, l)| (v.to_string(), l.to_string()));
+    let on_model = props.dispatch.reform(|word: String| Action::set("cdm", word));
     let plane = match state.text("tplane").trim() {
         "ground" => "ground",
         "upright" => "upright",
@@ -332,6 +338,7 @@ pub fn need_group(props: &InputsProps) -> Html {
             <Choice id="target-plane" label="On the target's plane" options={options(planes)} selected={plane} on_change={on_plane} />
             <Choice id="target-preset" label="Target" options={options(items)} selected={selected} {on_change} />
             { field(props, "tdim", length_hint(props, "tdim")) }
+            <Choice id="target-cdm" label="Critical dimension taken as" options={options(models)} selected={if state.text("cdm").trim() == "1d" { "1d" } else { "2d" }} on_change={on_model} />
         </fieldset>
     }
 }

@@ -1,7 +1,10 @@
 //! What a target will look like: Johnson cycles and the chance of each task.
 
+use crate::core::physics::target::CdModel;
+use crate::core::planning::solve::Reach;
 use crate::core::words::format;
 use crate::core::words::notes;
+use crate::core::words::units::Units;
 use crate::ui::components::results::value;
 use crate::ui::state::State;
 use std::rc::Rc;
@@ -13,11 +16,21 @@ pub struct TargetProps {
     pub state: Rc<State>,
 }
 
+/// One task range: a figure when bounded, words when met everywhere or nowhere.
+fn range_cell(reach: &Reach, key: &'static str, units: Units) -> Html {
+    match *reach {
+        Reach::UpTo { position_m, .. } => value(key, position_m, format::length(position_m, units)),
+        Reach::Everywhere { up_to_m } => html! { { format!("beyond {}", format::length(up_to_m, units)) } },
+        Reach::Nowhere { .. } => html! { { "not reached" } },
+    }
+}
+
 /// The target panel.
 #[function_component(TargetPanel)]
 pub fn target_panel(props: &TargetProps) -> Html {
     let report = &props.state.plan.report;
     let units = props.state.plan.scenario.units;
+    let axis = props.state.plan.sweep.axis;
     let (Some(size), Some(cycles)) = (report.target_m, report.target_cycles) else {
         return html! {
             <section class="panel" id="target"><h2>{ "What a target will look like" }</h2>
@@ -29,7 +42,7 @@ pub fn target_panel(props: &TargetProps) -> Html {
             <h2 id="target-title">{ "What a target will look like" }</h2>
             <p>{ format!("A target {} across spans ", format::length(size, units)) }
                 { value("target_cycles", cycles, format::significant(cycles)) }
-                { " resolvable cycles (Johnson criteria, 1958)." }</p>
+                { format!(" resolvable cycles {} ({} critical dimension).", notes::plane(report.target_plane), match report.cdm { CdModel::OneD => "Johnson's 1-D", CdModel::TwoD => "2-D, √area" }) }</p>
             <table class="chances">
                 <thead><tr><th scope="col">{ "Task" }</th><th scope="col">{ "Cycles for 50 %" }</th><th scope="col">{ "Chance" }</th></tr></thead>
                 <tbody>
@@ -42,6 +55,21 @@ pub fn target_panel(props: &TargetProps) -> Html {
                 }) }
                 </tbody>
             </table>
+            if !report.task_ranges.is_empty() {
+                <table class="chances" id="task-ranges">
+                    <caption>{ format!("Greatest {} for each task", notes::axis_noun(axis)) }</caption>
+                    <thead><tr><th scope="col">{ "Task" }</th><th scope="col">{ "50 %" }</th><th scope="col">{ "80 %" }</th></tr></thead>
+                    <tbody>
+                    { for report.task_ranges.iter().map(|t| html! {
+                        <tr data-task={format!("{:?}", t.task).to_lowercase()}>
+                            <th scope="row">{ format!("{:?}", t.task) }</th>
+                            <td>{ range_cell(&t.p50, "p50_m", units) }</td>
+                            <td>{ range_cell(&t.p80, "p80_m", units) }</td>
+                        </tr>
+                    }) }
+                    </tbody>
+                </table>
+            }
         </section>
     }
 }
