@@ -1,5 +1,5 @@
-//! The high-contrast switch. The page's `data-theme` is set in one place, the effect here
-//! (through `browser::set_theme`).
+//! The high-contrast switch, kept in the browser's storage so that it lasts through a reload.
+//! The page's `data-theme` is set in one place, the effect here (through `browser::set_theme`).
 
 use crate::ui::browser;
 use yew::prelude::*;
@@ -23,7 +23,13 @@ pub fn theme_toggle() -> Html {
     use_effect_with(*contrast, |on| browser::set_theme(theme_name(*on)));
     let onclick = {
         let contrast = contrast.clone();
-        Callback::from(move |_| contrast.set(!*contrast))
+        Callback::from(move |_| {
+            let next = !*contrast;
+            // A browser that refuses storage still switches: the choice then lasts until the page
+            // closes, which is no loss worth a message.
+            let _ = browser::storage_set(THEME_KEY, theme_name(next));
+            contrast.set(next);
+        })
     };
     html! {
         <button type="button" class="toggle" aria-pressed={contrast.to_string()} {onclick}>{ "High contrast" }</button>
