@@ -153,8 +153,13 @@ fn assert_shows(mounted: &Mounted, report: &Report) {
     let shown = mounted.shown();
     assert!(shown.len() >= 10, "only {} figures shown", shown.len());
     for (key, si) in shown {
-        let want = fields
-            .get(&key)
+        // A nested figure is named by its path into the report: `task_ranges.2.p50_m`.
+        let want = key
+            .split('.')
+            .try_fold(&fields, |v, part| match v {
+                Value::Array(items) => part.parse::<usize>().ok().and_then(|i| items.get(i)),
+                _ => v.get(part),
+            })
             .unwrap_or_else(|| panic!("{key} is shown but is not a report field"));
         let Some(si) = si else {
             panic!("{key} is shown without data-si (the contract asks for it on every result)");

@@ -52,8 +52,13 @@ impl AddressWriter {
         writer.pending = Some(raw);
         if writer.timer.is_none() {
             let delay = (ADDRESS_INTERVAL_MS - waited).clamp(0.0, ADDRESS_INTERVAL_MS) as u32;
-            let handle = this.clone();
+            // A weak handle: when the page's component goes, the writer and its timer go with it,
+            // so a write still pending never reaches the address afterwards.
+            let handle = std::rc::Rc::downgrade(this);
             writer.timer = Some(gloo::timers::callback::Timeout::new(delay, move || {
+                let Some(handle) = handle.upgrade() else {
+                    return;
+                };
                 let mut writer = handle.borrow_mut();
                 writer.timer = None;
                 if let Some(raw) = writer.pending.take() {

@@ -122,8 +122,13 @@ export function close(a, b, rel = 1e-9) {
 export function mismatches(shown, rep) {
   const out = [];
   for (const { key, si, text } of shown) {
-    if (!(key in rep)) { out.push(`${key}: shown ("${text}") but the report has no such field`); continue; }
-    const want = rep[key];
+    // A nested figure is named by its path: `task_ranges.2.p50_m`.
+    const path = key.split('.');
+    let parent = rep;
+    for (const part of path.slice(0, -1)) parent = parent == null ? undefined : parent[part];
+    const last = path[path.length - 1];
+    if (parent == null || typeof parent !== 'object' || !(last in parent)) { out.push(`${key}: shown ("${text}") but the report has no such field`); continue; }
+    const want = parent[last];
     if (si === null) { out.push(`${key}: shown ("${text}") without data-si`); continue; }
     if (typeof want === 'number') {
       const got = Number(si);

@@ -9,7 +9,7 @@ use crate::core::physics::optics;
 use crate::core::physics::target::{people_level, task_chances, CdModel, PeopleLevel, TaskChance};
 use crate::core::planning::cautions::{self, CautionInputs};
 use crate::core::planning::solve::{
-    focal_needed, task_ranges, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep, TargetPlane, TaskRange,
+    focal_needed, task_ranges, Axis, Crossing, EnvelopeChange, FocalNeed, Need, Reach, Sweep, TargetPlane, TaskRange,
 };
 use crate::core::planning::survey::SurveyPlan;
 use crate::core::words::notes::{self, CautionWords, SurveyWords};
@@ -90,6 +90,22 @@ pub struct Report {
     pub ignored: Vec<String>,
 }
 
+/// What a target will look like: the cycles across it on its plane, the chance of each task,
+/// and each task's greatest height or range; empty without a target.
+fn target_figures(
+    scenario: &Scenario,
+    e: &Evaluation,
+    sweep: &Sweep,
+    need: &Need,
+) -> (Option<f64>, Vec<TaskChance>, Vec<TaskRange>) {
+    let Some(t) = scenario.target_m else {
+        return (None, Vec::new(), Vec::new());
+    };
+    let period_on_plane = e.limit_m * need.plane.stretch(e.look_angle_deg);
+    let (n, chances) = task_chances(t, period_on_plane, scenario.cd_model);
+    (Some(n), chances, task_ranges(sweep, t, need.plane, scenario.cd_model))
+}
+
 impl Report {
     /// The report of a validated scenario from its engine setup, evaluation, sweep and survey plan.
     pub fn new(
@@ -104,22 +120,12 @@ impl Report {
         let plane_stretch = need.plane.stretch(e.look_angle_deg);
         let reach = need.is_given().then(|| sweep.reach(&need));
         let reach_m = reach.and_then(|r| r.position_m());
-        let task_ranges = scenario
-            .target_m
-            .map(|t| task_ranges(sweep, t, need.plane, scenario.cd_model))
-            .unwrap_or_default();
         let focal = need.is_given().then(|| focal_needed(e, setup, &need));
         let focal_needed_m = match focal {
             Some(FocalNeed::AtLeast { focal_m, .. }) => Some(focal_m),
             _ => None,
         };
-        let (target_cycles, target_chances) = match scenario.target_m {
-            Some(t) => {
-                let (n, chances) = task_chances(t, e.limit_m * plane_stretch, scenario.cd_model);
-                (Some(n), chances)
-            }
-            None => (None, Vec::new()),
-        };
+        let (target_cycles, target_chances, task_ranges) = target_figures(scenario, e, sweep, &need);
         let px_per_m = if e.gsd_m > 0.0 { 1.0 / e.gsd_m } else { 0.0 };
         let people = people_level(px_per_m);
         let cautions = cautions::cautions(CautionInputs {

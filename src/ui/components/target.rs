@@ -17,9 +17,12 @@ pub struct TargetProps {
 }
 
 /// One task range: a figure when bounded, words when met everywhere or nowhere.
-fn range_cell(reach: &Reach, key: &'static str, units: Units) -> Html {
+/// `key` is the figure's path in the report (`task_ranges.0.p50_m`).
+fn range_cell(reach: &Reach, key: String, units: Units) -> Html {
     match *reach {
-        Reach::UpTo { position_m, .. } => value(key, position_m, format::length(position_m, units)),
+        Reach::UpTo { position_m, .. } => html! {
+            <span class="value" data-key={key} data-si={position_m.to_string()}>{ format::length(position_m, units) }</span>
+        },
         Reach::Everywhere { up_to_m } => html! { { format!("beyond {}", format::length(up_to_m, units)) } },
         Reach::Nowhere { .. } => html! { { "not reached" } },
     }
@@ -60,11 +63,11 @@ pub fn target_panel(props: &TargetProps) -> Html {
                     <caption>{ format!("Greatest {} for each task", notes::axis_noun(axis)) }</caption>
                     <thead><tr><th scope="col">{ "Task" }</th><th scope="col">{ "50 %" }</th><th scope="col">{ "80 %" }</th></tr></thead>
                     <tbody>
-                    { for report.task_ranges.iter().map(|t| html! {
+                    { for report.task_ranges.iter().enumerate().map(|(i, t)| html! {
                         <tr data-task={format!("{:?}", t.task).to_lowercase()}>
                             <th scope="row">{ format!("{:?}", t.task) }</th>
-                            <td>{ range_cell(&t.p50, "p50_m", units) }</td>
-                            <td>{ range_cell(&t.p80, "p80_m", units) }</td>
+                            <td>{ range_cell(&t.p50, format!("task_ranges.{i}.p50_m"), units) }</td>
+                            <td>{ range_cell(&t.p80, format!("task_ranges.{i}.p80_m"), units) }</td>
                         </tr>
                     }) }
                     </tbody>
