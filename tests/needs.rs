@@ -142,3 +142,16 @@ fn task_ranges_put_the_chance_at_50_and_80_percent() {
         }
     }
 }
+
+#[test]
+fn a_long_path_over_hot_ground_warns_of_strong_scintillation() {
+    // 3 km at 1.5 m over hot ground (Cn² 1e-12 constant): σ_R² = 1.23·Cn²·k^(7/6)·L^(11/6) ≫ 1
+    // (Andrews & Phillips 2005); the same path in weak air (1e-16) stays below 1.
+    let base = "sw=6.17&sh=4.55&cols=4000&rows=3000&focal=300&fnum=4&wl=550&h=1.5&gd=3000&air=power&cexp=0";
+    let hot = report_for_query(&format!("{base}&cn2=1e-12"));
+    assert!(hot.rytov > 1.0, "{}", hot.rytov);
+    assert!(hot.cautions.iter().any(|c| c.code == "scintillation"));
+    let calm = report_for_query(&format!("{base}&cn2=1e-16"));
+    assert!(calm.rytov < 1.0, "{}", calm.rytov);
+    assert!(calm.cautions.iter().all(|c| c.code != "scintillation"));
+}

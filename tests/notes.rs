@@ -167,6 +167,7 @@ fn words_without_units_are_complete() {
         Caution::General,
         Caution::Height { airborne: true },
         Caution::Height { airborne: false },
+        Caution::Scintillation { rytov: 4.2 },
         Caution::Privacy {
             px_per_m: 130.0,
             level: PeopleLevel::Recognition,
@@ -177,7 +178,10 @@ fn words_without_units_are_complete() {
         },
     ] {
         let text = notes::caution(caution);
-        assert!(text.contains("local") || text.contains("where you work"), "{text}");
+        assert!(
+            text.contains("local") || text.contains("where you work") || text.contains("indicative"),
+            "{text}"
+        );
         if let Caution::Privacy { px_per_m, .. } = caution {
             assert!(text.contains(&format!("{px_per_m} pixels per metre")), "{text}");
         }

@@ -432,3 +432,39 @@ fn profiles_follow_their_published_forms() {
         check_relative(&format!("{profile:?} at {h} m"), profile.cn2(h), expected, 1e-14);
     }
 }
+
+#[test]
+fn rytov_variance_of_a_constant_cn2_path_matches_the_closed_form() {
+    // Plane wave, constant Cn²: σ_R² = 1.23·Cn²·k^(7/6)·L^(11/6) (Andrews & Phillips 2005;
+    // resolution-model §5.2), 1.23 being 2.25 · 6/11 = 1.2273 rounded.
+    for (cn2, length) in [(1e-15, 500.0), (1e-14, 1500.0), (1e-13, 3000.0)] {
+        let path = SlantPath {
+            camera_altitude_m: 8.0,
+            length_m: length,
+        };
+        let k = wavenumber(550e-9);
+        let expected = 2.25 * 6.0 / 11.0 * cn2 * k.powf(7.0 / 6.0) * f64::powf(length, 11.0 / 6.0);
+        let engine = turbulence::rytov_variance(&constant(cn2), path, 550e-9);
+        // The path quadrature is graded towards the ground, not towards the camera end where
+        // (1 − u)^(5/6) bends: a few parts in a million, well within the 1e-3 kept for r0.
+        check_relative(&format!("Cn² {cn2:e}, {length} m"), engine, expected, 1e-4);
+        assert!((2.25 * 6.0 / 11.0 - 1.23f64).abs() < 0.005, "the rounded coefficient");
+    }
+    // The weighting (L − z)^(5/6) against the reference quadrature on a varying profile.
+    let path = SlantPath {
+        camera_altitude_m: 300.0,
+        length_m: 2000.0,
+    };
+    let k = wavenumber(1e-6);
+    let reference = 2.25
+        * k.powf(7.0 / 6.0)
+        * f64::powf(2000.0, 11.0 / 6.0)
+        * reference_unit_path(&Profile::SlcDay, 300.0, &|u: f64| (1.0 - u).powf(5.0 / 6.0));
+    check_relative(
+        "SLC-Day slant path",
+        turbulence::rytov_variance(&Profile::SlcDay, path, 1e-6),
+        reference,
+        1e-3,
+    );
+    assert_eq!(turbulence::rytov_variance(&Profile::None, path, 1e-6), 0.0);
+}

@@ -7,6 +7,7 @@ use crate::core::contract::scenario::{FieldError, RawScenario, Scenario, CONTRAC
 use crate::core::physics::engine::{Evaluation, Limit, Setup};
 use crate::core::physics::optics;
 use crate::core::physics::target::{people_level, task_chances, CdModel, PeopleLevel, TaskChance};
+use crate::core::physics::turbulence::{rytov_variance, SlantPath};
 use crate::core::planning::cautions::{self, CautionInputs};
 use crate::core::planning::solve::{
     focal_needed, task_ranges, Axis, Crossing, EnvelopeChange, FocalNeed, Need, Reach, Sweep, TargetPlane, TaskRange,
@@ -78,6 +79,9 @@ pub struct Report {
     pub identifies_people: bool,
     /// Pixels per metre on the target, 1/GSD in the plane normal to the view.
     pub px_per_m: f64,
+    /// Rytov variance of the path (plane wave); above 1 the turbulence is strong and its figures
+    /// indicative.
+    pub rytov: f64,
     /// The highest level for watching people that the pixel density reaches (null below 25 px/m).
     pub people_level: Option<PeopleLevel>,
     pub cautions: Vec<CautionWords>,
@@ -127,11 +131,20 @@ impl Report {
         };
         let (target_cycles, target_chances, task_ranges) = target_figures(scenario, e, sweep, &need);
         let px_per_m = if e.gsd_m > 0.0 { 1.0 / e.gsd_m } else { 0.0 };
+        let rytov = rytov_variance(
+            &setup.profile,
+            SlantPath {
+                camera_altitude_m: setup.geometry.height_m,
+                length_m: e.slant_range_m,
+            },
+            setup.wavelength_m,
+        );
         let people = people_level(px_per_m);
         let cautions = cautions::cautions(CautionInputs {
             height_m: scenario.height_m,
             airborne: sweep.axis == Axis::Height,
             px_per_m,
+            rytov,
         });
         Report {
             v: CONTRACT_VERSION,
@@ -181,6 +194,7 @@ impl Report {
             identifies_people: people == Some(PeopleLevel::Identification),
             px_per_m,
             people_level: people,
+            rytov,
             cautions: notes::cautions(&cautions),
             survey: survey.clone(),
             survey_words: notes::survey_words(survey, scenario.units),

@@ -249,6 +249,28 @@ pub fn spherical_wave_r0_looking_up(profile: &Profile, path: SlantPath, waveleng
     coherence_length(FRIED_COEFFICIENT, wavelength_m, integral)
 }
 
+/// Rytov variance (plane wave) of the path, σ_R² = 2.25·k^(7/6)·∫₀ᴸ Cn²(z)·(L − z)^(5/6) dz with
+/// z from the target (the source) to the camera; for a constant Cn² it is 2.25·(6/11)·Cn²·
+/// k^(7/6)·L^(11/6) = 1.23·Cn²·k^(7/6)·L^(11/6) (Andrews & Phillips 2005; resolution-model §5.2).
+/// Above 1 the turbulence is strong (saturated scintillation) and the r0 figures are indicative.
+/// 0 for a path without turbulence.
+pub fn rytov_variance(profile: &Profile, path: SlantPath, wavelength_m: f64) -> f64 {
+    if !(path.length_m > 0.0 && wavelength_m > 0.0) || profile.is_none() {
+        return 0.0;
+    }
+    let k = 2.0 * PI / wavelength_m;
+    let weight = |u: f64| (1.0 - u).max(0.0).powf(5.0 / 6.0);
+    let value = 2.25
+        * k.powf(7.0 / 6.0)
+        * path.length_m.powf(11.0 / 6.0)
+        * integrate_unit_path(profile, path.camera_altitude_m, weight);
+    if value.is_finite() && value > 0.0 {
+        value
+    } else {
+        0.0
+    }
+}
+
 /// Plane-wave r0 of a path with uniform weighting: [0.423·k²·∫ Cn² dz]^(−3/5) (Fried 1966).
 pub fn plane_wave_r0(profile: &Profile, path: SlantPath, wavelength_m: f64) -> Option<f64> {
     if !(path.length_m > 0.0 && wavelength_m > 0.0) {

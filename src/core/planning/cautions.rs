@@ -14,6 +14,9 @@ pub enum Caution {
     General,
     /// Above [`COMMON_HEIGHT_CAP_M`]; `airborne` when the camera is carried by an aircraft.
     Height { airborne: bool },
+    /// The path is in strong scintillation (Rytov variance above 1): the turbulence figures are
+    /// indicative only.
+    Scintillation { rytov: f64 },
     /// At `px_per_m` on the target a person could be recognised (or identified, by `level`).
     Privacy { px_per_m: f64, level: PeopleLevel },
 }
@@ -25,6 +28,7 @@ impl Caution {
             Caution::General => "general",
             Caution::Height { .. } => "height",
             Caution::Privacy { .. } => "privacy",
+            Caution::Scintillation { .. } => "scintillation",
         }
     }
 }
@@ -37,6 +41,8 @@ pub struct CautionInputs {
     pub airborne: bool,
     /// Pixels per metre on the target (1/GSD).
     pub px_per_m: f64,
+    /// The path's Rytov variance.
+    pub rytov: f64,
 }
 
 /// The cautions for a plan; the general one is always present.
@@ -46,6 +52,9 @@ pub fn cautions(inputs: CautionInputs) -> Vec<Caution> {
         out.push(Caution::Height {
             airborne: inputs.airborne,
         });
+    }
+    if inputs.rytov > 1.0 {
+        out.push(Caution::Scintillation { rytov: inputs.rytov });
     }
     // From the level at which a person known to the viewer can be recognised (IEC 62676-4).
     if let Some(level) = people_level(inputs.px_per_m).filter(|l| *l >= PeopleLevel::Recognition) {

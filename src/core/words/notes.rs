@@ -136,6 +136,12 @@ pub fn caution(caution: Caution) -> String {
                  aircraft in sight. Check local rules before planning this."
             )
         }
+        Caution::Scintillation { rytov } => format!(
+            "The air path is in strong scintillation (Rytov variance {}, above 1): images shimmer and \
+             break up, and the turbulence figures here are indicative only. Shorten the path, or work \
+             early in the morning, in overcast or away from hot ground.",
+            significant(rytov)
+        ),
         Caution::Privacy { px_per_m, level } => format!(
             "At about {} pixels per metre on the target {}. In many jurisdictions such images are \
              personal data: tell people nearby, avoid private spaces, keep only what the job needs, and \
