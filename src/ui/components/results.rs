@@ -122,7 +122,7 @@ pub fn results(props: &ResultsProps) -> Html {
                 <dt>{ format!("Detail and GSD {}", notes::plane(report.target_plane)) }</dt>
                 <dd>{ value("detail_on_plane_m", report.detail_on_plane_m, format::length(report.detail_on_plane_m, units)) }{ ", GSD " }{ value("gsd_on_plane_m", report.gsd_on_plane_m, format::length(report.gsd_on_plane_m, units)) }</dd>
                 <dt>{ "Rytov variance of the path" }</dt>
-                <dd>{ value("rytov", report.rytov, format::significant(report.rytov)) }{ if report.rytov > 1.0 { " — strong scintillation: turbulence figures indicative" } else { " — weak scintillation (below 1)" } }</dd>
+                <dd>{ value("rytov", report.rytov, format::significant(report.rytov)) }{ if report.rytov > 1.0 { " — strong scintillation: turbulence figures indicative" } else if report.rytov > 0.0 { " — weak scintillation (below 1)" } else { " — no turbulence in this scenario" } }</dd>
                 <dt>{ "Ground-plane GSD along the view" }</dt>
                 <dd>{ value("gsd_ground_m", report.gsd_ground_m, format::length(report.gsd_ground_m, units)) }</dd>
                 <dt>{ "Motion smear" }</dt>
