@@ -94,18 +94,18 @@ pub struct Report {
     pub ignored: Vec<String>,
 }
 
-/// What a target will look like: the cycles across it on its plane, the chance of each task,
-/// and each task's greatest height or range; empty without a target.
+/// What a target will look like: the cycles across it under `period_on_plane` (the governing
+/// limit on its plane), the chance of each task, and each task's greatest height or range; empty
+/// without a target.
 fn target_figures(
     scenario: &Scenario,
-    e: &Evaluation,
+    period_on_plane: f64,
     sweep: &Sweep,
     need: &Need,
 ) -> (Option<f64>, Vec<TaskChance>, Vec<TaskRange>) {
     let Some(t) = scenario.target_m else {
         return (None, Vec::new(), Vec::new());
     };
-    let period_on_plane = e.limit_m * need.plane.stretch(e.look_angle_deg);
     let (n, chances) = task_chances(t, period_on_plane, scenario.cd_model);
     (Some(n), chances, task_ranges(sweep, t, need.plane, scenario.cd_model))
 }
@@ -129,7 +129,8 @@ impl Report {
             Some(FocalNeed::AtLeast { focal_m, .. }) => Some(focal_m),
             _ => None,
         };
-        let (target_cycles, target_chances, task_ranges) = target_figures(scenario, e, sweep, &need);
+        let detail_on_plane_m = e.limit_m * plane_stretch;
+        let (target_cycles, target_chances, task_ranges) = target_figures(scenario, detail_on_plane_m, sweep, &need);
         let px_per_m = if e.gsd_m > 0.0 { 1.0 / e.gsd_m } else { 0.0 };
         let rytov = rytov_variance(
             &setup.profile,
@@ -177,7 +178,7 @@ impl Report {
             need_gsd_m: scenario.need_gsd_m,
             target_plane: need.plane,
             plane_stretch,
-            detail_on_plane_m: e.limit_m * plane_stretch,
+            detail_on_plane_m,
             gsd_on_plane_m: e.gsd_m * plane_stretch,
             reach,
             reach_m,

@@ -344,32 +344,21 @@ fn counts(
     sp: &Spacing,
     notes: &mut Vec<SurveyNote>,
 ) -> (Option<u64>, Option<u64>, Option<u64>) {
-    let lines = match width {
-        Some(width_m) if sp.line_spacing_m > 0.0 => {
-            let n = stations(width_m, sp.line_spacing_m, MAX_LINES);
-            if n.is_none() {
-                notes.push(SurveyNote::TooManyLines {
-                    width_m,
-                    spacing_m: sp.line_spacing_m,
-                });
-            }
-            n
+    // Stations along `extent` at `step`, or a note (`too_many`) when there are more than `cap`.
+    let mut capped = |extent: Option<f64>, step: f64, cap: u64, too_many: fn(f64, f64) -> SurveyNote| {
+        let extent = extent.filter(|_| step > 0.0)?;
+        let n = stations(extent, step, cap);
+        if n.is_none() {
+            notes.push(too_many(extent, step));
         }
-        _ => None,
+        n
     };
-    let photos_per_line = match length {
-        Some(length_m) if sp.base_m > 0.0 => {
-            let n = stations(length_m, sp.base_m, MAX_PHOTOS);
-            if n.is_none() {
-                notes.push(SurveyNote::TooManyPhotosPerLine {
-                    length_m,
-                    base_m: sp.base_m,
-                });
-            }
-            n
-        }
-        _ => None,
-    };
+    let lines = capped(width, sp.line_spacing_m, MAX_LINES, |width_m, spacing_m| {
+        SurveyNote::TooManyLines { width_m, spacing_m }
+    });
+    let photos_per_line = capped(length, sp.base_m, MAX_PHOTOS, |length_m, base_m| {
+        SurveyNote::TooManyPhotosPerLine { length_m, base_m }
+    });
     let photos = match (lines, photos_per_line) {
         (Some(lines), Some(photos_per_line)) => {
             let total = lines.checked_mul(photos_per_line).filter(|&t| t <= MAX_PHOTOS);

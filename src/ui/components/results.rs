@@ -34,7 +34,8 @@ pub fn invalid_inputs(state: &State, field: &str) -> Vec<&'static str> {
 }
 
 /// A displayed value tagged with its report field and SI value.
-pub fn value(key: &'static str, si: f64, text: String) -> Html {
+pub fn value(key: impl Into<AttrValue>, si: f64, text: String) -> Html {
+    let key: AttrValue = key.into();
     html! { <span class="value" data-key={key} data-si={si.to_string()}>{ text }</span> }
 }
 
