@@ -1,9 +1,10 @@
 //! Speed of the engine: one full evaluation, a 200-point sweep over height, and a whole plan.
-//! Goals (issue 3): under 20 µs and under 2 ms natively. Run with `cargo bench --bench engine`.
+//! Goals (issues 3 and 10): a full evaluation with the imaging chain under 20 µs, a sweep under 2 ms
+//! natively. Run with `cargo bench --bench engine`.
 
 use criterion::{criterion_group, criterion_main, Criterion};
 use sharpfield::core::contract::plan::Plan;
-use sharpfield::core::physics::engine::evaluate;
+use sharpfield::core::physics::engine::{evaluate, quality};
 use sharpfield::core::planning::solve::{Axis, Sweep};
 use sharpfield::core::presets::demo;
 use std::hint::black_box;
@@ -12,6 +13,12 @@ fn engine(c: &mut Criterion) {
     let scenario = demo::pasture_survey();
     let setup = scenario.setup();
     c.bench_function("evaluate (power-law air)", |b| b.iter(|| evaluate(black_box(&setup))));
+    c.bench_function("evaluate with the image quality (power-law air)", |b| {
+        b.iter(|| {
+            let e = evaluate(black_box(&setup));
+            quality(&setup, &e)
+        })
+    });
 
     let mut hv = demo::pasture_survey();
     hv.air = sharpfield::core::contract::scenario::AirModel::Hv57;

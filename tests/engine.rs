@@ -9,6 +9,7 @@ mod common;
 
 use proptest::prelude::*;
 use proptest::test_runner::FileFailurePersistence;
+use sharpfield::core::physics::chain::ChainInputs;
 use sharpfield::core::physics::engine::{evaluate, Limit, Limits, Setup};
 use sharpfield::core::physics::geometry::Geometry;
 use sharpfield::core::physics::turbulence::Profile;
@@ -43,6 +44,7 @@ fn worked() -> Setup {
         exposure_s: 1.0 / 500.0,
         turn_rate_rad_s: 0.0,
         target_speed_mps: 0.0,
+        chain: ChainInputs::IDEAL,
     }
 }
 
@@ -342,6 +344,7 @@ fn every_figure_is_finite_at_the_edges_of_the_valid_ranges() {
                         exposure_s: exposure,
                         turn_rate_rad_s: 0.0,
                         target_speed_mps: 0.0,
+                        chain: ChainInputs::IDEAL,
                     };
                     let e = evaluate(&setup);
                     let figures = [

@@ -205,3 +205,21 @@ fn the_reach_sentence_speaks_the_chosen_units() {
         "{imperial}"
     );
 }
+
+#[test]
+fn the_niirs_note_names_every_reason_and_is_absent_inside_the_range() {
+    use sharpfield::core::physics::chain::NiirsCaveats;
+    let none = NiirsCaveats::of(550e-9, 1.5, 50.0, 90.0, 6.0);
+    assert_eq!(notes::niirs_note(&none, 1.5, 550e-9, 50.0, 90.0), None);
+    let all = NiirsCaveats::of(10e-6, 0.4, 3.0, 5.0, 10.5);
+    let text = notes::niirs_note(&all, 0.4, 10e-6, 3.0, 5.0).expect("every caveat applies");
+    for part in ["10000 nm", "Q = 0.4", "SNR 3", "5°", "0–9"] {
+        assert!(text.contains(part), "{part:?} missing from {text:?}");
+    }
+    // Each level of the scale has its words, and a figure above 9 says it is beyond the scale.
+    for (level, words) in notes::NIIRS_SCALE {
+        let within = (f64::from(level) + 0.5).min(9.0);
+        assert_eq!(notes::niirs_reading(within), words, "level {level}");
+    }
+    assert!(notes::niirs_reading(9.7).contains("finer than the scale"));
+}

@@ -417,13 +417,20 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
         prop::option::of(prop::sample::select(&[TargetPlane::Ground, TargetPlane::Upright][..])),
         prop::sample::select(&[CdModel::OneD, CdModel::TwoD][..]),
     );
-    (optics, air, survey, place, needs).prop_map(
+    let chain = (
+        in_range("obsc"),
+        in_range("wfe"),
+        in_range("fill"),
+        in_range("jitter"),
+        in_range("snr"),
+    );
+    (optics, air, survey, place, (needs, chain)).prop_map(
         |(
             (sw, sh, cols, rows, focal, fnum, wl, h, offset),
             (air, cn2, cexp, speed, shutter, rate, tspeed),
             (aw, al, fo, so, need, tdim, trig, endur, turn, mb, blur),
             (lat, lon, hdg, units, name, extra),
-            (need_gsd, plane, cdm),
+            ((need_gsd, plane, cdm), (obsc, wfe, fill, jitter, snr)),
         )| Scenario {
             name,
             sensor_width_mm: sw,
@@ -442,6 +449,11 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
             shutter_s: shutter,
             turn_rate_deg_s: rate,
             target_speed_mps: tspeed,
+            obscuration: obsc,
+            wfe_waves: wfe,
+            fill,
+            jitter_urad: jitter,
+            snr,
             need_m: need,
             need_gsd_m: need_gsd,
             target_plane: plane,

@@ -6,6 +6,7 @@ mod common;
 
 use proptest::prelude::*;
 use proptest::test_runner::FileFailurePersistence;
+use sharpfield::core::physics::chain::ChainInputs;
 use sharpfield::core::physics::engine::{evaluate, Evaluation, Limit, Setup};
 use sharpfield::core::physics::geometry::Geometry;
 use sharpfield::core::physics::turbulence::Profile;
@@ -364,6 +365,7 @@ fn focal_needed_of_a_worked_example() {
         exposure_s: 0.001,
         turn_rate_rad_s: 0.0,
         target_speed_mps: 0.0,
+        chain: ChainInputs::IDEAL,
     };
     match focal_needed(&evaluate(&setup), &setup, &detail(0.01, TargetPlane::Ground)) {
         FocalNeed::AtLeast { focal_m, bound_by } => {
@@ -446,6 +448,7 @@ fn envelope_keeps_a_brief_lead_between_two_table_points() {
         exposure_s: 0.005790549606693558,
         turn_rate_rad_s: 0.0,
         target_speed_mps: 0.0,
+        chain: ChainInputs::IDEAL,
     };
     let sweep = Sweep::new(setup, Axis::Height);
     if let Err(problem) = check_envelope(&sweep, 2000) {

@@ -5,6 +5,7 @@
 
 use proptest::prelude::*;
 use sharpfield::core::contract::scenario::Scenario;
+use sharpfield::core::physics::chain::ChainInputs;
 use sharpfield::core::physics::engine::{evaluate, Setup};
 use sharpfield::core::physics::geometry::Geometry;
 use sharpfield::core::physics::turbulence::Profile;
@@ -72,8 +73,22 @@ pub fn any_setup() -> impl Strategy<Value = Setup> {
         any::<bool>(),
     );
     let motion = (prop_oneof![Just(0.0), log_range(0.1, 150.0)], log_range(1e-6, 10.0));
-    (optics, place, any_profile(), motion).prop_map(
-        |((sw, cols, focal, fnum, wl), (h, gd, tilt, use_tilt), profile, (speed, shutter))| Setup {
+    let chain = (
+        prop_oneof![Just(0.0), 0.0f64..=0.89],
+        prop_oneof![Just(0.0), 0.0f64..=0.25],
+        prop_oneof![Just(1.0), 0.1f64..=1.0],
+        prop_oneof![Just(0.0), log_range(0.1, 10_000.0)],
+        log_range(1.0, 1000.0),
+    )
+        .prop_map(|(obscuration, wfe_waves, fill, jitter_urad, snr)| ChainInputs {
+            obscuration,
+            wfe_waves,
+            fill,
+            jitter_rad: jitter_urad * 1e-6,
+            snr,
+        });
+    (optics, place, any_profile(), (motion, chain)).prop_map(
+        |((sw, cols, focal, fnum, wl), (h, gd, tilt, use_tilt), profile, ((speed, shutter), chain))| Setup {
             sensor_width_m: sw * 1e-3,
             sensor_height_m: sw * 1e-3,
             cols,
@@ -94,6 +109,7 @@ pub fn any_setup() -> impl Strategy<Value = Setup> {
             exposure_s: shutter,
             turn_rate_rad_s: 0.0,
             target_speed_mps: 0.0,
+            chain,
         },
     )
 }

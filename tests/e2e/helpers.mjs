@@ -117,7 +117,8 @@ export function close(a, b, rel = 1e-9) {
 /**
  * Differences between what the page shows and the report: one line per displayed element whose
  * data-si does not equal the report's field of the same name. Numbers compare within 1e-9
- * relative; a null field must be shown with an empty data-si; words compare exactly.
+ * relative; a null field must be shown with an empty data-si; words compare exactly, and a yes/no
+ * field is shown as `true` or `false`.
  */
 export function mismatches(shown, rep) {
   const out = [];
@@ -135,6 +136,8 @@ export function mismatches(shown, rep) {
       if (si.trim() === '' || !Number.isFinite(got) || !close(got, want)) out.push(`${key}: data-si ${si}, report ${want}`);
     } else if (want === null) {
       if (si !== '') out.push(`${key}: data-si ${si}, report null`);
+    } else if (typeof want === 'boolean') {
+      if (si !== String(want)) out.push(`${key}: data-si ${JSON.stringify(si)}, report ${want}`);
     } else if (typeof want === 'string') {
       if (si !== want) out.push(`${key}: data-si ${JSON.stringify(si)}, report ${JSON.stringify(want)}`);
     } else {

@@ -7,6 +7,7 @@
 //! [`INPUTS`]; adding an input is one entry here plus its use.
 
 use crate::core::contract::scenario::{AirModel, Offset, RawScenario, Scenario, CONTRACT_VERSION};
+use crate::core::physics::chain::DEFAULT_SNR;
 use crate::core::physics::target::CdModel;
 use crate::core::planning::solve::TargetPlane;
 use crate::core::words::format::format_number;
@@ -215,6 +216,8 @@ const GEOMETRY: &[&str] = &[
 ];
 const PIXEL_PITCH: &[&str] = &["pitch_m", "gsd_m", "gsd_ground_m", "sampling_m", "px_per_m", "q"];
 const TURBULENCE: &[&str] = &["r0_m", "turbulence_m"];
+/// The image-quality figures of the imaging chain.
+const CHAIN: &[&str] = &["grd_m", "rer_along", "rer_across", "rer", "overshoot", "niirs"];
 
 /// Every key of the contract, in the order a query is written and errors are listed.
 pub const INPUTS: &[Input] = &[
@@ -362,6 +365,41 @@ pub const INPUTS: &[Input] = &[
     .or(0.0)
     .imperial(MPH)
     .feeds(&["motion_m"]),
+    number(
+        "obsc",
+        "Central obscuration of the lens",
+        "",
+        (0.0, 0.89),
+        plain!(obscuration),
+    )
+    .or(0.0)
+    .feeds(CHAIN),
+    number("wfe", "Wavefront error (rms)", "waves", (0.0, 0.25), plain!(wfe_waves))
+        .or(0.0)
+        .feeds(CHAIN),
+    number("fill", "Pixel fill factor", "", (0.1, 1.0), plain!(fill))
+        .or(1.0)
+        .feeds(CHAIN),
+    number(
+        "jitter",
+        "Line-of-sight jitter (rms)",
+        "µrad",
+        (0.0, 10_000.0),
+        plain!(jitter_urad),
+    )
+    .or(0.0)
+    .feeds(&[
+        "motion_m",
+        "grd_m",
+        "rer_along",
+        "rer_across",
+        "rer",
+        "overshoot",
+        "niirs",
+    ]),
+    number("snr", "Contrast signal-to-noise ratio", "", (1.0, 1000.0), plain!(snr))
+        .or(DEFAULT_SNR)
+        .feeds(CHAIN),
     number(
         "aw",
         "Area width (across the lines)",

@@ -4,7 +4,7 @@
 
 use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::{FieldError, RawScenario, Scenario, CONTRACT_VERSION};
-use crate::core::physics::engine::{Evaluation, Limit, Setup};
+use crate::core::physics::engine::{quality, Evaluation, Limit, Setup};
 use crate::core::physics::optics;
 use crate::core::physics::target::{people_level, task_chances, CdModel, PeopleLevel, TaskChance};
 use crate::core::physics::turbulence::{rytov_variance, SlantPath};
@@ -45,6 +45,26 @@ pub struct Report {
     pub advice: &'static str,
     pub q: f64,
     pub sampling_regime: &'static str,
+    /// Whether the short-exposure turbulence MTF was used (the frame is quicker than the air).
+    pub short_exposure: bool,
+    /// Ground resolved distance from the system MTF, a period (resolution-model §5.1): the
+    /// geometric mean of the two below.
+    pub grd_m: f64,
+    pub grd_along_m: f64,
+    pub grd_across_m: f64,
+    /// Relative edge responses along and across the motion, and the GIQE-5 weighted one.
+    pub rer_along: f64,
+    pub rer_across: f64,
+    pub rer: f64,
+    /// Edge overshoot H.
+    pub overshoot: f64,
+    /// Contrast SNR used (given, or the default).
+    pub snr: f64,
+    /// GIQE-5 NIIRS, and why it is only indicative (null inside its range).
+    pub niirs: f64,
+    pub niirs_note: Option<String>,
+    /// What the NIIRS scale says can be made out at that level.
+    pub niirs_reading: &'static str,
     /// What the backward solves vary: height (drone) or ground distance (fixed camera).
     pub solve_axis: Axis,
     /// The smallest detail to resolve on the target's plane (`need`).
@@ -141,6 +161,7 @@ impl Report {
             setup.wavelength_m,
         );
         let people = people_level(px_per_m);
+        let image = quality(setup, e);
         let cautions = cautions::cautions(CautionInputs {
             height_m: scenario.height_m,
             airborne: sweep.axis == Axis::Height,
@@ -173,6 +194,24 @@ impl Report {
             advice: notes::limit_advice(e.governing),
             q: e.q,
             sampling_regime: notes::sampling_regime(optics::sampling_regime(e.q)),
+            short_exposure: e.short_exposure,
+            grd_m: e.grd_m,
+            grd_along_m: e.grd_along_m,
+            grd_across_m: e.grd_across_m,
+            rer_along: image.rer_along,
+            rer_across: image.rer_across,
+            rer: image.rer,
+            overshoot: image.overshoot,
+            snr: image.snr,
+            niirs: image.niirs,
+            niirs_note: notes::niirs_note(
+                &image.caveats,
+                e.q,
+                setup.wavelength_m,
+                image.snr,
+                90.0 - e.look_angle_deg,
+            ),
+            niirs_reading: notes::niirs_reading(image.niirs),
             solve_axis: sweep.axis,
             need_m: scenario.need_m,
             need_gsd_m: scenario.need_gsd_m,

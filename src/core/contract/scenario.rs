@@ -9,6 +9,7 @@
 //! which also holds the contract's defaults. [`Scenario::setup`] then converts to SI for the engine.
 
 use crate::core::contract::inputs::INPUTS;
+use crate::core::physics::chain::ChainInputs;
 use crate::core::physics::engine::Setup;
 use crate::core::physics::geometry::Geometry;
 use crate::core::physics::target::CdModel;
@@ -146,6 +147,16 @@ pub struct Scenario {
     /// The target's own speed across the view (`tspeed`).
     pub target_speed_mps: f64,
     pub shutter_s: f64,
+    /// Central obscuration ratio of the lens (`obsc`).
+    pub obscuration: f64,
+    /// rms wavefront error, waves (`wfe`).
+    pub wfe_waves: f64,
+    /// Pixel fill factor (`fill`).
+    pub fill: f64,
+    /// rms line-of-sight jitter during the exposure, µrad (`jitter`).
+    pub jitter_urad: f64,
+    /// Contrast SNR (`snr`).
+    pub snr: f64,
     pub need_m: Option<f64>,
     /// A required GSD on the target's plane (`needgsd`).
     pub need_gsd_m: Option<f64>,
@@ -267,6 +278,13 @@ impl Scenario {
             exposure_s: self.shutter_s,
             turn_rate_rad_s: self.turn_rate_deg_s.to_radians(),
             target_speed_mps: self.target_speed_mps,
+            chain: ChainInputs {
+                obscuration: self.obscuration,
+                wfe_waves: self.wfe_waves,
+                fill: self.fill,
+                jitter_rad: self.jitter_urad * 1e-6,
+                snr: self.snr,
+            },
         }
     }
 

@@ -51,12 +51,7 @@ pub fn diffraction_mtf(normalised_frequency: f64) -> f64 {
 /// |sinc(π·x)| with sinc(0) = 1: the MTF of a uniform blur of width d at frequency ν, x = d·ν.
 /// Used for the detector footprint and for linear motion (common practice; Goodman ch. 6).
 pub fn box_mtf(width_times_frequency: f64) -> f64 {
-    let x = PI * width_times_frequency;
-    if x.abs() < 1e-9 {
-        1.0
-    } else {
-        (x.sin() / x).abs()
-    }
+    box_otf(width_times_frequency).abs()
 }
 
 /// Q at which the sampling limit 2·GSD equals the Rayleigh separation: 2·p = (j₁,₁/π)·λN, so
@@ -79,5 +74,60 @@ pub fn sampling_regime(q: f64) -> SamplingRegime {
         SamplingRegime::DetectorLimited
     } else {
         SamplingRegime::OpticsLimited
+    }
+}
+
+/// Diffraction MTF of a circular pupil with a central obscuration of ratio `obscuration` (inner /
+/// outer diameter, 0 ≤ ε < 1) at normalised frequency v = ν·λ·N (O'Neill, JOSA 46, 1956; the
+/// closed form as given in Schroeder, *Astronomical Optics*, §10.2): [A + B + C]/(1 − ε²), where A
+/// is the open pupil's MTF, B the obscuration's own and C their cross term. Equal to
+/// [`diffraction_mtf`] for ε = 0; zero at and beyond the cutoff v = 1.
+pub fn obscured_diffraction_mtf(normalised_frequency: f64, obscuration: f64) -> f64 {
+    let v = normalised_frequency.abs();
+    let e = if obscuration.is_finite() {
+        obscuration.clamp(0.0, 0.99)
+    } else {
+        0.0
+    };
+    if e <= 0.0 {
+        return diffraction_mtf(v);
+    }
+    if v >= 1.0 || v.is_nan() {
+        return 0.0;
+    }
+    let a = diffraction_mtf(v);
+    let b = if v <= e { e * e * diffraction_mtf(v / e) } else { 0.0 };
+    let c = if v <= 0.5 * (1.0 - e) {
+        -2.0 * e * e
+    } else if v < 0.5 * (1.0 + e) {
+        let phi = ((1.0 + e * e - 4.0 * v * v) / (2.0 * e)).clamp(-1.0, 1.0).acos();
+        (2.0 * e / PI) * phi.sin() + ((1.0 + e * e) / PI) * phi
+            - (2.0 * (1.0 - e * e) / PI) * (((1.0 + e) / (1.0 - e)) * (0.5 * phi).tan()).atan()
+            - 2.0 * e * e
+    } else {
+        0.0
+    };
+    ((a + b + c) / (1.0 - e * e)).max(0.0)
+}
+
+/// Aberration transfer factor of a random wavefront error of `rms_waves` waves rms at normalised
+/// frequency v: exp{−(2π·W)²·[1 − 4(v − 0.5)²]}, equal to 1 at v = 0 and at the cutoff (the
+/// Gaussian form of Shannon's empirical ATF as used by Fiete, *Modeling the Imaging Chain of Digital
+/// Cameras*, SPIE 2010, ch. 4; quoted from memory).
+pub fn wavefront_error_factor(normalised_frequency: f64, rms_waves: f64) -> f64 {
+    let v = normalised_frequency.abs().min(1.0);
+    let w = if rms_waves.is_finite() { rms_waves.max(0.0) } else { 0.0 };
+    let shape = 1.0 - 4.0 * (v - 0.5) * (v - 0.5);
+    (-(2.0 * PI * w).powi(2) * shape).exp()
+}
+
+/// The signed sinc(π·x) = sin(πx)/(πx), sinc(0) = 1: the optical transfer function of a uniform
+/// blur of width d at frequency ν, x = d·ν. Its phase (the sign) matters for edge responses.
+pub fn box_otf(width_times_frequency: f64) -> f64 {
+    let x = PI * width_times_frequency;
+    if x.abs() < 1e-9 {
+        1.0
+    } else {
+        x.sin() / x
     }
 }

@@ -315,3 +315,114 @@ pub fn long_exposure_mtf(wavelength_m: f64, r0_m: Option<f64>, cycles_per_radian
         _ => 1.0,
     }
 }
+
+/// The speed at which the air crosses the path, assumed for the turbulence's time scale until the
+/// wind is an input: a light breeze of 5 m/s (an assumption, not a measurement).
+pub const ASSUMED_AIR_SPEED_MPS: f64 = 5.0;
+
+/// The turbulence's coherence time τ0 = 0.314·r0/v for air crossing the path at `air_speed_mps`
+/// (Roddier 1981, quoted from memory; a few milliseconds near the ground). `None` without turbulence.
+pub fn coherence_time(r0_m: Option<f64>, air_speed_mps: f64) -> Option<f64> {
+    match r0_m {
+        Some(r0) if r0 > 0.0 && r0.is_finite() && air_speed_mps > 0.0 => Some(0.314 * r0 / air_speed_mps),
+        _ => None,
+    }
+}
+
+/// How the turbulence blurs one frame.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub enum Exposure {
+    /// No turbulence on the path.
+    Clear,
+    /// The frame averages many states of the air: the long-exposure MTF, Fried parameter `r0_m`.
+    Long { r0_m: f64 },
+    /// The frame is shorter than the coherence time, so the tilt is frozen (the image moves between
+    /// frames instead): the short-exposure MTF with Fried's near-field (α = 1) or far-field
+    /// (α = 0.5) factor.
+    Short { r0_m: f64, alpha: f64 },
+}
+
+impl Exposure {
+    /// Chooses short exposure when the frame is shorter than the coherence time, near field when
+    /// the aperture is wider than the Fresnel scale √(λL) (Fried 1966; resolution-model §5.2).
+    pub fn choose(r0_m: Option<f64>, exposure_s: f64, aperture_m: f64, wavelength_m: f64, length_m: f64) -> Exposure {
+        let r0 = match r0_m {
+            Some(r0) if r0 > 0.0 && r0.is_finite() => r0,
+            _ => return Exposure::Clear,
+        };
+        match coherence_time(Some(r0), ASSUMED_AIR_SPEED_MPS) {
+            Some(tau) if exposure_s < tau && aperture_m > 0.0 => {
+                let fresnel = (wavelength_m.max(0.0) * length_m.max(0.0)).sqrt();
+                let alpha = if aperture_m > fresnel { 1.0 } else { 0.5 };
+                Exposure::Short { r0_m: r0, alpha }
+            }
+            _ => Exposure::Long { r0_m: r0 },
+        }
+    }
+
+    /// Whether the short-exposure MTF is used.
+    pub fn is_short(&self) -> bool {
+        matches!(self, Exposure::Short { .. })
+    }
+
+    /// The turbulence MTF at `cycles_per_radian` for an aperture `aperture_m` wide: Fried's long
+    /// exposure exp[−3.44(λξ/r0)^(5/3)] or short exposure
+    /// exp{−3.44(λξ/r0)^(5/3)[1 − α(λξ/D)^(1/3)]} (Fried 1966; resolution-model §5.2).
+    pub fn mtf(&self, wavelength_m: f64, aperture_m: f64, cycles_per_radian: f64) -> f64 {
+        let xi = cycles_per_radian.abs();
+        match *self {
+            Exposure::Clear => 1.0,
+            Exposure::Long { r0_m } => (-3.44 * (wavelength_m * xi / r0_m).powf(5.0 / 3.0)).exp(),
+            Exposure::Short { r0_m, alpha } => {
+                let tilt = if aperture_m > 0.0 {
+                    (wavelength_m * xi / aperture_m).min(1.0).powf(1.0 / 3.0)
+                } else {
+                    0.0
+                };
+                (-3.44 * (wavelength_m * xi / r0_m).powf(5.0 / 3.0) * (1.0 - alpha * tilt)).exp()
+            }
+        }
+    }
+
+    /// The turbulence's limit as an angle (rad): the seeing FWHM 0.98·λ/r0 for long exposure. For
+    /// short exposure, the period at which its MTF falls to the level the long-exposure MTF has at
+    /// the FWHM (e^(−3.44·0.98^(−5/3)) ≈ 2.8 %), so both are read on one footing; λ/D (the
+    /// diffraction cutoff) when it never falls that far. Zero without turbulence.
+    pub fn limit_angle(&self, wavelength_m: f64, aperture_m: f64) -> f64 {
+        match *self {
+            Exposure::Clear => 0.0,
+            Exposure::Long { r0_m } => seeing_angle(wavelength_m, Some(r0_m)),
+            Exposure::Short { r0_m, alpha } => short_exposure_limit_angle(wavelength_m, aperture_m, r0_m, alpha),
+        }
+    }
+}
+
+/// See [`Exposure::limit_angle`]: solves y^(5/3)·[1 − α(y·r0/D)^(1/3)] = 0.98^(−5/3) for the
+/// first crossing in y = λξ/r0 up to the cutoff y = D/r0 (a scan, then bisection).
+fn short_exposure_limit_angle(wavelength_m: f64, aperture_m: f64, r0_m: f64, alpha: f64) -> f64 {
+    if !(aperture_m > 0.0 && r0_m > 0.0 && wavelength_m > 0.0) {
+        return seeing_angle(wavelength_m, Some(r0_m));
+    }
+    let level = SEEING_FWHM_FACTOR.powf(-5.0 / 3.0);
+    let y_max = aperture_m / r0_m;
+    let exponent = |y: f64| y.powf(5.0 / 3.0) * (1.0 - alpha * (y / y_max).min(1.0).powf(1.0 / 3.0));
+    const SCAN: usize = 32;
+    let mut lo = 0.0;
+    for i in 1..=SCAN {
+        let hi = y_max * i as f64 / SCAN as f64;
+        if exponent(hi) >= level {
+            let (mut a, mut b) = (lo, hi);
+            for _ in 0..50 {
+                let mid = 0.5 * (a + b);
+                if exponent(mid) >= level {
+                    b = mid;
+                } else {
+                    a = mid;
+                }
+            }
+            return wavelength_m / (r0_m * 0.5 * (a + b));
+        }
+        lo = hi;
+    }
+    wavelength_m / aperture_m
+}

@@ -1,6 +1,7 @@
 //! Words for the typed results: the physics and the planning return enums with their figures in
 //! SI, and this module alone turns them into sentences, in the units the person chose.
 
+use crate::core::physics::chain::NiirsCaveats;
 use crate::core::physics::engine::Limit;
 use crate::core::physics::optics::SamplingRegime;
 use crate::core::physics::target::{PeopleLevel, Task};
@@ -46,6 +47,99 @@ pub fn limit_advice(limit: Limit) -> &'static str {
         }
         Limit::Motion => "Use a shorter exposure time, a slower ground speed or a steadier camera.",
     }
+}
+
+/// What a limit's figure means, in one plain sentence.
+pub fn limit_meaning(limit: Limit) -> &'static str {
+    match limit {
+        Limit::Sampling => "The finest bar pattern the pixels can record: one bar and one gap need a pixel each.",
+        Limit::Diffraction => "The closest two points can be and still show as two through this aperture.",
+        Limit::Turbulence => "How far the shimmering air spreads a point along this path during the frame.",
+        Limit::Motion => "How far the scene slides across the sensor while the shutter is open.",
+    }
+}
+
+/// What the ground resolved distance means, in one plain sentence.
+pub const GRD_MEANING: &str = "All the blurs together: the finest bar pattern whose contrast still stands out of the \
+                               noise (the system MTF at 3/SNR), never finer than two pixels.";
+
+/// Whether the frame froze the turbulence, in a short phrase.
+pub fn exposure_kind(short: bool, has_turbulence: bool) -> &'static str {
+    match (has_turbulence, short) {
+        (false, _) => "no turbulence in this scenario",
+        (true, true) => "short exposure: the frame is quicker than the air changes, so the shimmer is frozen (it shifts the image between frames instead)",
+        (true, false) => "long exposure: the frame averages the shimmering air",
+    }
+}
+
+/// What a person can make out at each level of the NIIRS scale, in this planner's own words, from
+/// 0 to 9 (each level roughly halves the detail; the level figures follow GIQE's GSD scaling).
+pub const NIIRS_SCALE: [(u8, &str); 10] = [
+    (0, "nothing useful can be made out"),
+    (1, "large features only: rivers, big fields, the extent of a town"),
+    (2, "big buildings, wide roads and the shape of fields"),
+    (3, "single large buildings, road junctions, the layout of a farmyard"),
+    (4, "sheds and houses one by one, lorries, hedges and field edges"),
+    (5, "single cars and their size, gates and tracks, large animals"),
+    (
+        6,
+        "a car told from a van by its shape, a person as a small figure, rows in a crop",
+    ),
+    (
+        7,
+        "fence posts one by one, a car's windows and wheels, a person's arms and legs",
+    ),
+    (
+        8,
+        "a vehicle's mirrors, single plants in a row, roof tiles, the wires of a fence",
+    ),
+    (
+        9,
+        "bolts and cable ties, cracks a few centimetres wide, a seedling's first leaves",
+    ),
+];
+
+/// What the scale says for a NIIRS figure (the level it reaches, rounded down).
+pub fn niirs_reading(niirs: f64) -> &'static str {
+    if niirs > 9.0 {
+        return "finer than the scale describes: detail of a few centimetres and less";
+    }
+    let level = if niirs.is_finite() {
+        niirs.floor().clamp(0.0, 9.0) as usize
+    } else {
+        0
+    };
+    NIIRS_SCALE[level].1
+}
+
+/// Why a NIIRS figure is only indicative, in one sentence; `None` inside GIQE 5.0's range.
+pub fn niirs_note(caveats: &NiirsCaveats, q: f64, wavelength_m: f64, snr: f64, elevation_deg: f64) -> Option<String> {
+    if !caveats.any() {
+        return None;
+    }
+    let mut reasons = Vec::new();
+    if caveats.band {
+        reasons.push(format!(
+            "the wavelength {} nm is not visible light (GIQE 5.0 is for visible panchromatic images)",
+            significant(wavelength_m * 1e9)
+        ));
+    }
+    if caveats.sampling {
+        reasons.push(format!("Q = {} lies outside the 1–2 it was fitted on", significant(q)));
+    }
+    if caveats.snr {
+        reasons.push(format!("the SNR {} is below 5", significant(snr)));
+    }
+    if caveats.elevation {
+        reasons.push(format!(
+            "the view is {}° above the horizon, below 8.9°",
+            significant(elevation_deg)
+        ));
+    }
+    if caveats.off_scale {
+        reasons.push("the figure lies beyond the scale's 0–9".to_string());
+    }
+    Some(format!("Indicative only: {}.", reasons.join("; ")))
 }
 
 /// The sampling regime in a short phrase (GIQE 5.0).

@@ -107,12 +107,13 @@ pub fn camera_group(props: &InputsProps) -> Html {
             <Choice id="camera-preset" label="Sensor format" options={options(items)} selected={selected} {on_change} />
             { pair(field(props, "sw", None), field(props, "sh", None)) }
             { pair(field(props, "cols", None), field(props, "rows", None)) }
+            { field(props, "fill", Some("1 = the whole pixel collects light".to_string())) }
             <p class="derived">{ "Pixel pitch " }<span data-key="pitch_m" data-si={state.plan.report.pitch_m.to_string()}>{ format!("{} µm", format::significant(pitch_um)) }</span></p>
         </fieldset>
     }
 }
 
-/// Lens: focal length and f-number.
+/// Lens: focal length, f-number, and how far from perfect it is.
 #[function_component(LensGroup)]
 pub fn lens_group(props: &InputsProps) -> Html {
     let aperture = props.state.plan.report.aperture_m;
@@ -120,6 +121,7 @@ pub fn lens_group(props: &InputsProps) -> Html {
         <fieldset class="group" id="group-lens">
             <legend>{ "Lens" }</legend>
             { pair(field(props, "focal", None), field(props, "fnum", None)) }
+            { pair(field(props, "obsc", Some("0 for an ordinary lens".to_string())), field(props, "wfe", Some("0 for a perfect lens".to_string()))) }
             <p class="derived">{ "Aperture diameter " }<span data-key="aperture_m" data-si={aperture.to_string()}>{ format!("{} mm", format::significant(aperture * 1000.0)) }</span></p>
         </fieldset>
     }
@@ -147,6 +149,7 @@ pub fn band_group(props: &InputsProps) -> Html {
             <legend>{ "Band" }</legend>
             <Choice id="band-preset" label="Band" options={options(items)} selected={selected} {on_change} />
             { field(props, "wl", None) }
+            { field(props, "snr", Some("50 for a well-lit scene (assumed)".to_string())) }
         </fieldset>
     }
 }
@@ -263,7 +266,7 @@ pub fn air_group(props: &InputsProps) -> Html {
     }
 }
 
-/// Motion: ground speed and exposure time.
+/// Motion: ground speed, exposure time, turning, the target's speed and jitter.
 #[function_component(MotionGroup)]
 pub fn motion_group(props: &InputsProps) -> Html {
     let speed_hint = props
@@ -279,6 +282,7 @@ pub fn motion_group(props: &InputsProps) -> Html {
             <legend>{ "Motion" }</legend>
             { pair(field(props, "speed", speed_hint), field(props, "shutter", Some("1/1000 is accepted".to_string()))) }
             { pair(field(props, "rate", Some("gimbal slew, mast sway".to_string())), field(props, "tspeed", None)) }
+            { field(props, "jitter", Some("vibration of the camera mount".to_string())) }
         </fieldset>
     }
 }

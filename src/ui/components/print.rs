@@ -50,23 +50,33 @@ fn input_rows(plan: &Plan) -> Vec<(&'static str, String)> {
         (
             "Camera",
             format!(
-                "{} × {} mm sensor, {} × {} pixels, pitch {} µm",
+                "{} × {} mm sensor, {} × {} pixels, pitch {} µm, fill {}",
                 format::significant(s.sensor_width_mm),
                 format::significant(s.sensor_height_mm),
                 s.cols,
                 s.rows,
-                format::significant(r.pitch_m * 1e6)
+                format::significant(r.pitch_m * 1e6),
+                format::percent(s.fill)
             ),
         ),
         (
             "Lens",
             format!(
-                "{} mm at f/{}",
+                "{} mm at f/{}; obscuration {}, wavefront error {} waves",
                 format::significant(s.focal_mm),
-                format::significant(s.f_number)
+                format::significant(s.f_number),
+                format::significant(s.obscuration),
+                format::significant(s.wfe_waves)
             ),
         ),
-        ("Band", format!("{} nm", format::significant(s.wavelength_nm))),
+        (
+            "Band",
+            format!(
+                "{} nm; contrast SNR {}",
+                format::significant(s.wavelength_nm),
+                format::significant(s.snr)
+            ),
+        ),
         (
             "Geometry",
             format!(
@@ -79,9 +89,10 @@ fn input_rows(plan: &Plan) -> Vec<(&'static str, String)> {
         (
             "Motion",
             format!(
-                "{}, exposure {} s",
+                "{}, exposure {} s, jitter {} µrad",
                 format::speed(s.speed_mps, units),
-                format::significant(s.shutter_s)
+                format::significant(s.shutter_s),
+                format::significant(s.jitter_urad)
             ),
         ),
     ]
@@ -160,12 +171,20 @@ pub fn print_sheet(props: &PrintProps) -> Html {
                                 <td>{ len(plan.evaluation.limits.get(l)) }{ if l == r.governing { " — governs" } else { "" } }</td>
                             </tr>
                         }) }
+                        <tr class="combined">
+                            <th>{ "All together (GRD)" }</th>
+                            <td>{ if r.grd_along_m > r.grd_across_m * 1.0005 { format!("{}; along the motion {}", len(r.grd_m), len(r.grd_along_m)) } else { len(r.grd_m) } }</td>
+                        </tr>
+                        <tr>
+                            <th>{ "Predicted NIIRS (GIQE 5)" }</th>
+                            <td>{ format!("{:.1}{}", r.niirs, if r.niirs_note.is_some() { " (indicative)" } else { "" }) }</td>
+                        </tr>
                     </table>
-                    <p>{ format!("{} governs at {}. {}", notes::limit_title(r.governing), len(r.limit_m), r.advice) }</p>
-                    <p>{ reach }</p>
                 </div>
                 <div>{ chart_svg(c, "The four limits") }</div>
             </div>
+            <p>{ format!("{} governs at {}. {}", notes::limit_title(r.governing), len(r.limit_m), r.advice) }</p>
+            <p>{ reach }</p>
             <div class="print-grid">
                 <div>
                     <h2>{ "Survey" }</h2>
