@@ -383,46 +383,4 @@ impl Exposure {
             }
         }
     }
-
-    /// The turbulence's limit as an angle (rad): the seeing FWHM 0.98·λ/r0 for long exposure. For
-    /// short exposure, the period at which its MTF falls to the level the long-exposure MTF has at
-    /// the FWHM (e^(−3.44·0.98^(−5/3)) ≈ 2.8 %), so both are read on one footing; λ/D (the
-    /// diffraction cutoff) when it never falls that far. Zero without turbulence.
-    pub fn limit_angle(&self, wavelength_m: f64, aperture_m: f64) -> f64 {
-        match *self {
-            Exposure::Clear => 0.0,
-            Exposure::Long { r0_m } => seeing_angle(wavelength_m, Some(r0_m)),
-            Exposure::Short { r0_m, alpha } => short_exposure_limit_angle(wavelength_m, aperture_m, r0_m, alpha),
-        }
-    }
-}
-
-/// See [`Exposure::limit_angle`]: solves y^(5/3)·[1 − α(y·r0/D)^(1/3)] = 0.98^(−5/3) for the
-/// first crossing in y = λξ/r0 up to the cutoff y = D/r0 (a scan, then bisection).
-fn short_exposure_limit_angle(wavelength_m: f64, aperture_m: f64, r0_m: f64, alpha: f64) -> f64 {
-    if !(aperture_m > 0.0 && r0_m > 0.0 && wavelength_m > 0.0) {
-        return seeing_angle(wavelength_m, Some(r0_m));
-    }
-    let level = SEEING_FWHM_FACTOR.powf(-5.0 / 3.0);
-    let y_max = aperture_m / r0_m;
-    let exponent = |y: f64| y.powf(5.0 / 3.0) * (1.0 - alpha * (y / y_max).min(1.0).powf(1.0 / 3.0));
-    const SCAN: usize = 32;
-    let mut lo = 0.0;
-    for i in 1..=SCAN {
-        let hi = y_max * i as f64 / SCAN as f64;
-        if exponent(hi) >= level {
-            let (mut a, mut b) = (lo, hi);
-            for _ in 0..50 {
-                let mid = 0.5 * (a + b);
-                if exponent(mid) >= level {
-                    b = mid;
-                } else {
-                    a = mid;
-                }
-            }
-            return wavelength_m / (r0_m * 0.5 * (a + b));
-        }
-        lo = hi;
-    }
-    wavelength_m / aperture_m
 }
