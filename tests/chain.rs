@@ -244,17 +244,33 @@ fn a_lower_snr_never_resolves_finer() {
 #[test]
 fn removing_the_tilt_never_lowers_the_turbulence_mtf() {
     // Fried 1966: the short-exposure MTF is the long-exposure one with the tilt taken out, so it is
-    // never lower; at α = 1 and λξ/D = 1 the bracket vanishes and it returns to 1.
+    // never lower, and a frame that averages all the wander gives the long-exposure MTF.
     let (wl, d, r0) = (550e-9, 0.2, 0.02);
-    for i in 0..=50 {
-        let xi = d / wl * i as f64 / 50.0;
-        let long = Exposure::Long { r0_m: r0 }.mtf(wl, d, xi);
-        for alpha in [0.5, 1.0] {
-            let short = Exposure::Short { r0_m: r0, alpha }.mtf(wl, d, xi);
-            assert!(short >= long, "ξ = {xi}, α = {alpha}: {short} < {long}");
+    let long = |xi: f64| (-3.44 * (wl * xi / r0).powf(5.0 / 3.0)).exp(); // Fried's long exposure
+    for exposure_s in [1e-5, 1e-3, 1e-2, 1.0] {
+        let e = Exposure::choose(Some(r0), exposure_s, d, wl, 3000.0);
+        for i in 0..=50 {
+            let xi = d / wl * i as f64 / 50.0;
+            assert!(
+                e.mtf(wl, d, xi) >= long(xi) * (1.0 - 1e-12),
+                "t = {exposure_s}, ξ = {xi}"
+            );
         }
     }
-    check("α = 1 at the cutoff", Exposure::Short { r0_m: r0, alpha: 1.0 }.mtf(wl, d, d / wl), 1.0, 1e-12);
+    let averaged = Exposure::choose(Some(r0), 1e3, d, wl, 3000.0);
+    check(
+        "a long frame: Fried's long exposure",
+        averaged.mtf(wl, d, 0.3 * d / wl),
+        long(0.3 * d / wl),
+        1e-9,
+    );
+    // Frozen near field (α → 1) at λξ/D = 1: the bracket vanishes and the MTF returns to 1.
+    let frozen = Exposure::Air {
+        r0_m: r0,
+        alpha: 1.0,
+        tilt_share: 0.0,
+    };
+    check("α = 1 at the cutoff", frozen.mtf(wl, d, d / wl), 1.0, 1e-12);
 }
 
 #[test]
@@ -263,15 +279,16 @@ fn a_frame_shorter_than_the_airs_time_scale_is_short_exposure() {
     let choose = |exposure| Exposure::choose(Some(0.05), exposure, 0.01, 550e-9, 1000.0);
     assert!(choose(0.001).is_short());
     assert!(!choose(0.01).is_short());
-    // Near field when the aperture is wider than √(λL) = 2.3 cm at 1 km.
-    assert_eq!(
-        Exposure::choose(Some(0.05), 0.001, 0.1, 550e-9, 1000.0),
-        Exposure::Short { r0_m: 0.05, alpha: 1.0 }
-    );
-    assert_eq!(
-        Exposure::choose(Some(0.05), 0.001, 0.01, 550e-9, 1000.0),
-        Exposure::Short { r0_m: 0.05, alpha: 0.5 }
-    );
+    // The share of the wander averaged at t = τ0 is one half; α is 0.75 where D = √(λL).
+    let tau = 0.314 * 0.05 / 5.0;
+    let fresnel = (550e-9f64 * 1000.0).sqrt();
+    match Exposure::choose(Some(0.05), tau, fresnel, 550e-9, 1000.0) {
+        Exposure::Air { alpha, tilt_share, .. } => {
+            check("share at τ0", tilt_share, 0.5, 1e-12);
+            check("α at the Fresnel scale", alpha, 0.75, 1e-12);
+        }
+        Exposure::Clear => panic!("the path has turbulence"),
+    }
     assert_eq!(Exposure::choose(None, 0.001, 0.01, 550e-9, 1000.0), Exposure::Clear);
 }
 

@@ -76,7 +76,8 @@ pub struct Report {
     /// How much longer a figure normal to the view is on the target's plane (1/cos θ on the
     /// ground, 1/sin θ upright; at most 1e6 where the plane is seen edge-on).
     pub plane_stretch: f64,
-    /// The governing limit and the GSD on the target's plane, as the needs are compared.
+    /// The detail resolved in every direction (the coarser GRD) and the GSD on the target's plane,
+    /// as the needs are compared.
     pub detail_on_plane_m: f64,
     pub gsd_on_plane_m: f64,
     pub reach: Option<Reach>,
@@ -114,8 +115,8 @@ pub struct Report {
     pub ignored: Vec<String>,
 }
 
-/// What a target will look like: the cycles across it under `period_on_plane` (the governing
-/// limit on its plane), the chance of each task, and each task's greatest height or range; empty
+/// What a target will look like: the cycles across it under `period_on_plane` (the GRD on its
+/// plane, in its coarser direction), the chance of each task, and each task's greatest height or range; empty
 /// without a target.
 fn target_figures(
     scenario: &Scenario,
@@ -149,7 +150,7 @@ impl Report {
             Some(FocalNeed::AtLeast { focal_m, .. }) => Some(focal_m),
             _ => None,
         };
-        let detail_on_plane_m = e.limit_m * plane_stretch;
+        let detail_on_plane_m = e.resolved_m * plane_stretch;
         let (target_cycles, target_chances, task_ranges) = target_figures(scenario, detail_on_plane_m, sweep, &need);
         let px_per_m = if e.gsd_m > 0.0 { 1.0 / e.gsd_m } else { 0.0 };
         let rytov = rytov_variance(

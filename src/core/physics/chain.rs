@@ -121,10 +121,13 @@ impl SystemMtf {
     }
 
     /// Whether |OTF| can only fall from 0 up to `xi_max`: true when no term rises again there
-    /// (no wavefront error, no short-exposure turbulence, sinc terms on their main lobe).
+    /// (no wavefront error, no frozen tilt in the turbulence, sinc terms on their main lobe).
     fn falls_steadily(&self, xi_max: f64, direction: Direction) -> bool {
         let smear_ok = direction == Direction::Across || self.smear_rad * xi_max <= 1.0;
-        smear_ok && self.wfe_waves <= 0.0 && !self.exposure.is_short() && self.active_width_rad * xi_max <= 1.0
+        smear_ok
+            && self.wfe_waves <= 0.0
+            && self.exposure.tilt_removed() <= 0.0
+            && self.active_width_rad * xi_max <= 1.0
     }
 
     /// A lower bound of |OTF| over [0, `xi_max`]: the falling terms at `xi_max` times the least
@@ -146,14 +149,10 @@ impl SystemMtf {
             * optics::box_mtf(smear)
             * (-2.0 * PI * PI * self.jitter_rad * self.jitter_rad * xi_max * xi_max).exp();
         let wavefront = optics::wavefront_error_factor(v.min(0.5), self.wfe_waves);
-        let turbulence = match self.exposure {
-            Exposure::Short { alpha, .. } if alpha > 0.0 => {
-                let peak = (5.0 / (6.0 * alpha)).powi(3);
-                self.exposure
-                    .mtf(self.wavelength_m, self.aperture_m, v.min(peak) * cutoff)
-            }
-            _ => self.exposure.mtf(self.wavelength_m, self.aperture_m, xi_max),
-        };
+        // The exponent c·v^(5/3)·(1 − a·v^(1/3)) peaks at v = (5/(6a))³.
+        let a = self.exposure.tilt_removed();
+        let v_worst = if a > 0.0 { v.min((5.0 / (6.0 * a)).powi(3)) } else { v };
+        let turbulence = self.exposure.mtf(self.wavelength_m, self.aperture_m, v_worst * cutoff);
         falling * wavefront * turbulence
     }
 

@@ -139,6 +139,9 @@ pub struct Evaluation {
     /// 3/SNR, never less than 2·GSD (IBSM Eq. 3-54).
     pub grd_along_m: f64,
     pub grd_across_m: f64,
+    /// The detail resolved in every direction, the larger of the two: what needs and target
+    /// cycles are judged by, so that a smear is never hidden by the sharper direction.
+    pub resolved_m: f64,
     /// The system transfer function, for the edge response.
     pub system: SystemMtf,
 }
@@ -259,6 +262,7 @@ pub fn evaluate(setup: &Setup) -> Evaluation {
         grd_m: finite(grd_along.sqrt() * grd_across.sqrt()),
         grd_along_m: grd_along,
         grd_across_m: grd_across,
+        resolved_m: grd_along.max(grd_across),
         system,
     }
 }

@@ -329,58 +329,79 @@ pub fn coherence_time(r0_m: Option<f64>, air_speed_mps: f64) -> Option<f64> {
     }
 }
 
-/// How the turbulence blurs one frame.
+/// How the turbulence blurs one frame: Fried's short-exposure MTF with the part of the image's
+/// wander (tilt) that the frame averages put back. A frame far shorter than the coherence time
+/// freezes the tilt (short exposure); a frame far longer averages all of it, which gives the
+/// long-exposure MTF exactly, since exp{−3.44·α(λξ/r0)^(5/3)(λξ/D)^(1/3)} is Fried's tilt term.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub enum Exposure {
     /// No turbulence on the path.
     Clear,
-    /// The frame averages many states of the air: the long-exposure MTF, Fried parameter `r0_m`.
-    Long { r0_m: f64 },
-    /// The frame is shorter than the coherence time, so the tilt is frozen (the image moves between
-    /// frames instead): the short-exposure MTF with Fried's near-field (α = 1) or far-field
-    /// (α = 0.5) factor.
-    Short { r0_m: f64, alpha: f64 },
+    /// Turbulence with Fried parameter `r0_m`; `alpha` runs from 0.5 (far field) to 1 (near field)
+    /// and `tilt_share` from 0 (the frame freezes the wander) to 1 (it averages all of it).
+    Air { r0_m: f64, alpha: f64, tilt_share: f64 },
 }
 
 impl Exposure {
-    /// Chooses short exposure when the frame is shorter than the coherence time, near field when
-    /// the aperture is wider than the Fresnel scale √(λL) (Fried 1966; resolution-model §5.2).
+    /// The exposure of a frame `exposure_s` long through air of Fried parameter `r0_m`, on a path
+    /// `length_m` long to an aperture `aperture_m` wide. The share of the wander averaged is
+    /// x²/(1 + x²) with x = t/τ0 (a smooth step from frozen to averaged, our assumption); α
+    /// runs as 0.5 + 0.5·s²/(1 + s²) with s = D/√(λL), from Fried's far field (D ≪ √(λL)) to
+    /// his near field (D ≫ √(λL)) (Fried 1966; resolution-model §5.2).
     pub fn choose(r0_m: Option<f64>, exposure_s: f64, aperture_m: f64, wavelength_m: f64, length_m: f64) -> Exposure {
         let r0 = match r0_m {
             Some(r0) if r0 > 0.0 && r0.is_finite() => r0,
             _ => return Exposure::Clear,
         };
-        match coherence_time(Some(r0), ASSUMED_AIR_SPEED_MPS) {
-            Some(tau) if exposure_s < tau && aperture_m > 0.0 => {
-                let fresnel = (wavelength_m.max(0.0) * length_m.max(0.0)).sqrt();
-                let alpha = if aperture_m > fresnel { 1.0 } else { 0.5 };
-                Exposure::Short { r0_m: r0, alpha }
+        let tilt_share = match coherence_time(Some(r0), ASSUMED_AIR_SPEED_MPS) {
+            Some(tau) if exposure_s.is_finite() => {
+                let x = (exposure_s.max(0.0) / tau).min(1e6);
+                x * x / (1.0 + x * x)
             }
-            _ => Exposure::Long { r0_m: r0 },
+            _ => 1.0,
+        };
+        let fresnel = (wavelength_m.max(0.0) * length_m.max(0.0)).sqrt();
+        let alpha = if fresnel > 0.0 && aperture_m.is_finite() {
+            let s2 = (aperture_m.max(0.0) / fresnel).powi(2).min(1e12);
+            0.5 + 0.5 * s2 / (1.0 + s2)
+        } else {
+            1.0
+        };
+        Exposure::Air {
+            r0_m: r0,
+            alpha,
+            tilt_share,
         }
     }
 
-    /// Whether the short-exposure MTF is used.
+    /// Whether the frame is short exposure: shorter than the coherence time, so that it freezes
+    /// most of the wander (the share averaged is below one half).
     pub fn is_short(&self) -> bool {
-        matches!(self, Exposure::Short { .. })
+        matches!(self, Exposure::Air { tilt_share, .. } if *tilt_share < 0.5)
     }
 
-    /// The turbulence MTF at `cycles_per_radian` for an aperture `aperture_m` wide: Fried's long
-    /// exposure exp[−3.44(λξ/r0)^(5/3)] or short exposure
-    /// exp{−3.44(λξ/r0)^(5/3)[1 − α(λξ/D)^(1/3)]} (Fried 1966; resolution-model §5.2).
-    pub fn mtf(&self, wavelength_m: f64, aperture_m: f64, cycles_per_radian: f64) -> f64 {
-        let xi = cycles_per_radian.abs();
+    /// The factor that multiplies α(λξ/D)^(1/3) in the exponent's bracket: the wander left frozen.
+    pub fn tilt_removed(&self) -> f64 {
         match *self {
-            Exposure::Clear => 1.0,
-            Exposure::Long { r0_m } => (-3.44 * (wavelength_m * xi / r0_m).powf(5.0 / 3.0)).exp(),
-            Exposure::Short { r0_m, alpha } => {
-                let tilt = if aperture_m > 0.0 {
-                    (wavelength_m * xi / aperture_m).min(1.0).powf(1.0 / 3.0)
-                } else {
-                    0.0
-                };
-                (-3.44 * (wavelength_m * xi / r0_m).powf(5.0 / 3.0) * (1.0 - alpha * tilt)).exp()
-            }
+            Exposure::Clear => 0.0,
+            Exposure::Air { alpha, tilt_share, .. } => alpha * (1.0 - tilt_share),
         }
+    }
+
+    /// The turbulence MTF at `cycles_per_radian` for an aperture `aperture_m` wide:
+    /// exp{−3.44(λξ/r0)^(5/3)[1 − a(λξ/D)^(1/3)]} with a = α·(1 − tilt share) (Fried 1966): the
+    /// long-exposure MTF for a = 0, the short-exposure one for a = α.
+    pub fn mtf(&self, wavelength_m: f64, aperture_m: f64, cycles_per_radian: f64) -> f64 {
+        let Exposure::Air { r0_m, .. } = *self else {
+            return 1.0;
+        };
+        let xi = cycles_per_radian.abs();
+        let a = self.tilt_removed();
+        let tilt = if aperture_m > 0.0 && a > 0.0 {
+            (wavelength_m * xi / aperture_m).min(1.0).powf(1.0 / 3.0)
+        } else {
+            0.0
+        };
+        (-3.44 * (wavelength_m * xi / r0_m).powf(5.0 / 3.0) * (1.0 - a * tilt)).exp()
     }
 }

@@ -7,7 +7,6 @@
 
 use crate::core::physics::engine::{evaluate, Evaluation, Limit, Setup};
 use crate::core::physics::geometry::Geometry;
-use crate::core::physics::optics::RAYLEIGH_FACTOR;
 use crate::core::physics::target::{ratio_for, CdModel, Task};
 use serde::Serialize;
 
@@ -231,9 +230,9 @@ impl TargetPlane {
     }
 }
 
-/// What the images must show, on the target's plane: the smallest detail to resolve (a
-/// separation, compared with the governing limit) and a required GSD; each optional, both met
-/// when both are given.
+/// What the images must show, on the target's plane: the smallest detail to resolve (a period,
+/// compared with the ground resolved distance in its coarser direction, all the blurs together)
+/// and a required GSD; each optional, both met when both are given.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct Need {
     pub detail_m: Option<f64>,
@@ -245,27 +244,27 @@ impl Need {
     /// Whether an evaluation meets every part of the need.
     pub fn meets(&self, e: &Evaluation) -> bool {
         let k = self.plane.stretch(e.look_angle_deg);
-        self.detail_m.is_none_or(|d| e.limit_m * k <= d) && self.gsd_m.is_none_or(|g| e.gsd_m * k <= g)
+        self.detail_m.is_none_or(|d| e.resolved_m * k <= d) && self.gsd_m.is_none_or(|g| e.gsd_m * k <= g)
     }
 
     /// The limit that keeps an evaluation from the need: for the detail, motion when it alone is
-    /// too large (it is the one that does not shrink close in), else the governing limit; for the
-    /// GSD, sampling.
+    /// too large (it is the one that does not shrink close in), else the governing limit (the
+    /// largest part of the GRD); for the GSD, sampling.
     fn failing_limit(&self, e: &Evaluation) -> Limit {
         let k = self.plane.stretch(e.look_angle_deg);
         match self.detail_m {
             Some(d) if e.limits.motion * k > d => Limit::Motion,
-            Some(d) if e.limit_m * k > d => e.governing,
+            Some(d) if e.resolved_m * k > d => e.governing,
             _ => Limit::Sampling,
         }
     }
 
     /// The finest figure on the target's plane that an evaluation gives for the failing part of
-    /// the need: the governing limit for a detail, the GSD for a GSD.
+    /// the need: the GRD for a detail, the GSD for a GSD.
     fn best_figure(&self, e: &Evaluation) -> f64 {
         let k = self.plane.stretch(e.look_angle_deg);
         match self.detail_m {
-            Some(d) if e.limit_m * k > d || self.gsd_m.is_none() => e.limit_m * k,
+            Some(d) if e.resolved_m * k > d || self.gsd_m.is_none() => e.resolved_m * k,
             _ => e.gsd_m * k,
         }
     }
@@ -340,41 +339,29 @@ pub enum FocalNeed {
     Impossible { forbidden_by: Limit },
 }
 
-/// Closed form: GSD and the Rayleigh distance both scale as 1/f at a fixed f-number
-/// (resolution-model §1–§2), while seeing and motion do not depend on the lens. Each part of the
-/// need asks for a focal length; the longest is needed.
+/// The shortest and longest focal lengths the focal solve considers (m), and its scan.
+const FOCAL_DOMAIN: (f64, f64) = (1e-4, 100.0);
+const FOCAL_POINTS: usize = 32;
+
+/// The focal length needed at the current geometry and f-number. For the GSD, a closed form (GSD
+/// scales as 1/f, resolution-model §1). For the detail, the GRD: it shrinks with f through the
+/// pixels and the aperture while turbulence and motion do not depend on the lens, so a log scan
+/// of focal lengths and bisection find the shortest that meets it, and a lens long enough to
+/// leave only the air and the motion tells when none does. The longest of the two is needed.
 pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need: &Need) -> FocalNeed {
     let k = need.plane.stretch(evaluation.look_angle_deg);
     let range = evaluation.slant_range_m * k;
     let mut best: Option<(f64, Limit)> = None;
-    let mut consider = |focal_m: f64, limit: Limit| {
-        if best.is_none_or(|(f, _)| focal_m > f) {
-            best = Some((focal_m, limit));
-        }
-    };
     if let Some(d) = need.detail_m {
         if d.is_nan() || d <= 0.0 {
             return FocalNeed::Impossible {
                 forbidden_by: evaluation.governing,
             };
         }
-        let lens_free = [
-            (Limit::Turbulence, evaluation.limits.turbulence),
-            (Limit::Motion, evaluation.limits.motion),
-        ];
-        if let Some((limit, _)) = lens_free
-            .iter()
-            .filter(|(_, v)| v * k > d)
-            .max_by(|a, b| a.1.total_cmp(&b.1))
-        {
-            return FocalNeed::Impossible { forbidden_by: *limit };
+        match focal_for_detail(setup, d, k) {
+            Ok(found) => best = Some(found),
+            Err(forbidden_by) => return FocalNeed::Impossible { forbidden_by },
         }
-        // The sampling limit is 2·GSD = 2·p·R/f (resolution-model §5).
-        consider(2.0 * setup.pixel_pitch_m() * range / d, Limit::Sampling);
-        consider(
-            RAYLEIGH_FACTOR * setup.wavelength_m * setup.f_number * range / d,
-            Limit::Diffraction,
-        );
     }
     if let Some(g) = need.gsd_m {
         if g.is_nan() || g <= 0.0 {
@@ -382,7 +369,10 @@ pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need: &Need) -> Foca
                 forbidden_by: Limit::Sampling,
             };
         }
-        consider(setup.pixel_pitch_m() * range / g, Limit::Sampling);
+        let focal_m = setup.pixel_pitch_m() * range / g;
+        if best.is_none_or(|(f, _)| focal_m > f) {
+            best = Some((focal_m, Limit::Sampling));
+        }
     }
     match best {
         Some((focal_m, bound_by)) if focal_m.is_finite() => FocalNeed::AtLeast { focal_m, bound_by },
@@ -390,6 +380,44 @@ pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need: &Need) -> Foca
             forbidden_by: evaluation.governing,
         },
     }
+}
+
+/// The shortest focal length whose GRD on the plane (stretch `k`) is at most `detail_m`, with the
+/// limit that governs there; or the lens-free limit (turbulence or motion) that forbids it.
+fn focal_for_detail(setup: &Setup, detail_m: f64, k: f64) -> Result<(f64, Limit), Limit> {
+    let at = |focal_m: f64| evaluate(&Setup { focal_m, ..*setup });
+    let meets = |e: &Evaluation| e.resolved_m * k <= detail_m;
+    let (lo, hi) = FOCAL_DOMAIN;
+    let ratio = (hi / lo).ln();
+    let grid: Vec<f64> = (0..FOCAL_POINTS)
+        .map(|i| (lo * (ratio * i as f64 / (FOCAL_POINTS - 1) as f64).exp()).clamp(lo, hi))
+        .collect();
+    let longest = at(hi);
+    if !meets(&longest) {
+        let lens_free = if longest.limits.motion >= longest.limits.turbulence {
+            Limit::Motion
+        } else {
+            Limit::Turbulence
+        };
+        return Err(lens_free);
+    }
+    // The longest focal length of the scan that fails: the answer lies just above it.
+    let Some(i) = grid.iter().rposition(|&f| !meets(&at(f))) else {
+        return Ok((lo, at(lo).governing));
+    };
+    let (mut a, mut b) = (grid[i], grid.get(i + 1).copied().unwrap_or(hi));
+    for _ in 0..BISECTIONS {
+        let mid = 0.5 * (a + b);
+        if meets(&at(mid)) {
+            b = mid;
+        } else {
+            a = mid;
+        }
+        if b - a <= 1e-9 * b {
+            break;
+        }
+    }
+    Ok((b, at(b).governing))
 }
 
 /// The greatest height or ground distance at which one task reaches 50 % and 80 %.

@@ -199,7 +199,7 @@ pub fn results(props: &ResultsProps) -> Html {
             <dl class="figures">
                 <dt>{ "Sampling ratio Q = λN/p" }</dt>
                 <dd>{ value("q", report.q, format::significant(report.q)) }{ format!(" — {}", report.sampling_regime) }</dd>
-                <dt>{ format!("Detail and GSD {}", notes::plane(report.target_plane)) }</dt>
+                <dt>{ format!("Detail resolved (coarser direction) and GSD {}", notes::plane(report.target_plane)) }</dt>
                 <dd>{ value("detail_on_plane_m", report.detail_on_plane_m, format::length(report.detail_on_plane_m, units)) }{ ", GSD " }{ value("gsd_on_plane_m", report.gsd_on_plane_m, format::length(report.gsd_on_plane_m, units)) }</dd>
                 <dt>{ "Rytov variance of the path" }</dt>
                 <dd>{ value("rytov", report.rytov, format::significant(report.rytov)) }{ if report.rytov > 1.0 { " — strong scintillation: turbulence figures indicative" } else if report.rytov > 0.0 { " — weak scintillation (below 1)" } else { " — no turbulence in this scenario" } }</dd>
