@@ -52,11 +52,15 @@ pub fn app() -> Html {
             let r = &plan.report;
             let crossings: Vec<f64> = r.envelope_changes.iter().map(|c| c.position_m).collect();
             // The need is on the target's plane; the chart draws limits in the plane normal to the view.
+            let tasks: Vec<_> = r.task_ranges.iter().filter_map(|t| Some((t.task, t.p50_m?))).collect();
             chart::build(
                 &plan.sweep,
-                r.need_m.map(|n| n / r.plane_stretch),
-                r.reach_m,
-                &crossings,
+                &chart::Marks {
+                    need_m: r.need_m.map(|n| n / r.plane_stretch),
+                    reach_m: r.reach_m,
+                    crossings: &crossings,
+                    tasks: &tasks,
+                },
                 plan.scenario.units,
             )
         })

@@ -2,10 +2,11 @@
 //! Rust so it is tested natively; the UI only turns it into SVG elements.
 
 use crate::core::physics::engine::{evaluate, Limit};
+use crate::core::physics::target::Task;
 use crate::core::planning::cautions::COMMON_HEIGHT_CAP_M;
 use crate::core::planning::solve::{Axis, Sweep};
 use crate::core::words::format::significant;
-use crate::core::words::notes::axis_noun;
+use crate::core::words::notes::{axis_noun, task_verb};
 use crate::core::words::units::Units;
 use crate::core::words::units::{METRES_PER_FOOT, METRES_PER_INCH};
 
@@ -55,6 +56,10 @@ pub struct Chart {
     pub y_title: String,
     pub series: Vec<Series>,
     pub envelope: String,
+    /// The detail resolved through the whole chain (the GRD, coarser direction).
+    pub grd: String,
+    /// Where the GRD line's label sits, at its right end.
+    pub grd_label_y: f64,
     pub x_ticks: Vec<Tick>,
     pub y_ticks: Vec<Tick>,
     /// Vertical markers along the x axis.
@@ -166,15 +171,30 @@ fn x_markers(
     markers
 }
 
-/// Builds the chart for a sweep. `need_m` draws the required resolution, `reach_m` helps choose the
-/// x range, `crossings` are positions (m) to mark.
-pub fn build(sweep: &Sweep, need_m: Option<f64>, reach_m: Option<f64>, crossings: &[f64], units: Units) -> Chart {
+/// What the chart marks along its axis besides the current position and the height cap.
+pub struct Marks<'a> {
+    /// The required resolution, in the plane normal to the view.
+    pub need_m: Option<f64>,
+    /// The greatest reach for the need; it also helps choose the x range.
+    pub reach_m: Option<f64>,
+    /// Where the governing limit changes (m).
+    pub crossings: &'a [f64],
+    /// Each task's greatest height or range at 50 % (m).
+    pub tasks: &'a [(Task, f64)],
+}
+
+/// Builds the chart for a sweep with its marks.
+pub fn build(sweep: &Sweep, marks: &Marks, units: Units) -> Chart {
+    let (need_m, reach_m, crossings) = (marks.need_m, marks.reach_m, marks.crossings);
     let axis = sweep.axis;
     let x_max = x_extent(axis, sweep.current(), reach_m);
     let xs: Vec<f64> = (1..=SAMPLES).map(|i| x_max * i as f64 / SAMPLES as f64).collect();
     let evaluations: Vec<_> = xs.iter().map(|&x| evaluate(&sweep.setup_at(x))).collect();
 
-    let envelope_max = evaluations.iter().map(|e| e.limit_m).fold(0.0, f64::max);
+    let envelope_max = evaluations
+        .iter()
+        .map(|e| e.limit_m.max(e.resolved_m))
+        .fold(0.0, f64::max);
     let y_wanted = envelope_max.max(need_m.unwrap_or(0.0) * 1.2).max(1e-6);
     let (y_unit, y_per) = axis_unit(y_wanted, units);
     let y_step = nice_step(y_wanted / y_per, 5.0) * y_per;
@@ -208,12 +228,20 @@ pub fn build(sweep: &Sweep, need_m: Option<f64>, reach_m: Option<f64>, crossings
         })
         .collect();
     let envelope = path(&mut evaluations.iter().map(|e| e.limit_m));
+    let grd = path(&mut evaluations.iter().map(|e| e.resolved_m));
 
     let (x_unit, x_per) = axis_unit(x_max, units);
     let x_ticks = ticks(x_max, nice_step(x_max / x_per, 5.0) * x_per, x_per, to_x);
     let y_ticks = ticks(y_max, y_step, y_per, to_y);
 
-    let x_markers = x_markers(sweep, x_max, crossings, reach_m, units, to_x);
+    let mut x_markers = x_markers(sweep, x_max, crossings, reach_m, units, to_x);
+    for &(task, at) in marks.tasks.iter().filter(|(_, at)| *at > 0.0 && *at <= x_max) {
+        x_markers.push(Marker {
+            kind: "task",
+            at: to_x(at),
+            label: format!("{} 50 %", task_verb(task)),
+        });
+    }
     let y_markers = need_m
         .map(|n| {
             vec![Marker {
@@ -233,6 +261,8 @@ pub fn build(sweep: &Sweep, need_m: Option<f64>, reach_m: Option<f64>, crossings
         y_title: format!("Smallest detail ({y_unit})"),
         series,
         envelope,
+        grd,
+        grd_label_y: to_y(evaluations.last().map_or(0.0, |e| e.resolved_m)) + 12.0,
         x_ticks,
         y_ticks,
         x_markers,

@@ -162,6 +162,16 @@ pub fn task(task: Task) -> &'static str {
     }
 }
 
+/// The task in one word, for marks on the chart.
+pub fn task_verb(task: Task) -> &'static str {
+    match task {
+        Task::Detection => "detect",
+        Task::Orientation => "orient",
+        Task::Recognition => "recognise",
+        Task::Identification => "identify",
+    }
+}
+
 /// The quantity the backward solves vary, in plain words.
 pub fn axis_noun(axis: Axis) -> &'static str {
     match axis {

@@ -1,4 +1,5 @@
-//! The chart of the four limits and the governing envelope against height or ground distance.
+//! The chart of the four limits, the governing envelope and the GRD against height or ground
+//! distance, with the task ranges marked.
 
 use crate::core::physics::engine::Limit;
 use crate::core::words::chart::{Chart, HEIGHT, WIDTH};
@@ -46,6 +47,10 @@ pub fn chart_svg(c: &Chart, title: &str) -> Html {
                 <text class="axis-title" x={((c.plot_left + c.plot_right) / 2.0).to_string()} y={(HEIGHT - 8.0).to_string()} text-anchor="middle">{ c.x_title.clone() }</text>
                 <text class="axis-title" transform={format!("translate(14 {}) rotate(-90)", (c.plot_top + c.plot_bottom) / 2.0)} text-anchor="middle">{ c.y_title.clone() }</text>
                 <path class="envelope" d={c.envelope.clone()} />
+                <g class="series grd">
+                    <path d={c.grd.clone()} stroke-dasharray="1 3" />
+                    <text x={(c.plot_right - 4.0).to_string()} y={c.grd_label_y.to_string()} text-anchor="end">{ "GRD" }</text>
+                </g>
                 { for c.series.iter().map(|s| html! {
                     <g class={classes!("series", s.limit.key())}>
                         <path d={s.path.clone()} stroke-dasharray={dash(s.limit)} />
@@ -55,7 +60,8 @@ pub fn chart_svg(c: &Chart, title: &str) -> Html {
                 { for c.x_markers.iter().map(|m| html! {
                     <g class={classes!("marker", m.kind)} data-marker={m.kind}>
                         <line x1={m.at.to_string()} x2={m.at.to_string()} y1={c.plot_top.to_string()} y2={c.plot_bottom.to_string()} />
-                        <text x={(m.at + 3.0).to_string()} y={(c.plot_top + 12.0).to_string()}>{ m.label.clone() }</text>
+                        // Task marks are labelled at the foot, clear of the other marks' labels at the top.
+                        <text x={(m.at + 3.0).to_string()} y={(if m.kind == "task" { c.plot_bottom - 6.0 } else { c.plot_top + 12.0 }).to_string()}>{ m.label.clone() }</text>
                     </g>
                 }) }
                 { for c.y_markers.iter().map(|m| html! {
@@ -79,8 +85,8 @@ pub fn limits_chart(props: &ChartProps) -> Html {
             <h2 id="chart-title">{ title.clone() }</h2>
             { chart_svg(c, &title) }
             <p class="legend">
-                { "Solid: sampling · long dashes: diffraction · dots: turbulence · dash-dot: motion · thick line: the governing envelope. Vertical lines: the current " }
-                { notes::axis_noun(plan.sweep.axis) }{ ", the 120 m (400 ft) height many rules cap drones at, where the governing limit changes, and the greatest " }{ notes::axis_noun(plan.sweep.axis) }{ " meeting the need." }
+                { "Solid: sampling · long dashes: diffraction · dots: turbulence · dash-dot: motion · thick line: the governing envelope · fine dots: the detail resolved with all the blurs together (GRD, coarser direction). Vertical lines: the current " }
+                { notes::axis_noun(plan.sweep.axis) }{ ", the 120 m (400 ft) height many rules cap drones at, where the governing limit changes, and the greatest " }{ notes::axis_noun(plan.sweep.axis) }{ " meeting the need and each task at a 50 % chance." }
             </p>
         </section>
     }
