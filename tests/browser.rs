@@ -173,7 +173,9 @@ fn assert_shows(mounted: &Mounted, report: &Report) {
             }
             Value::Null => assert_eq!(si, "", "{key} is null in the report"),
             Value::String(s) => assert_eq!(&si, s, "{key}"),
-            other => panic!("{key}: report field {other} is neither a number nor a word"),
+            // A yes/no field is shown as `true` or `false`.
+            Value::Bool(b) => assert_eq!(si, b.to_string(), "{key}"),
+            other => panic!("{key}: report field {other} is neither a number, a word nor a yes/no"),
         }
     }
 }

@@ -160,6 +160,20 @@ fn finite(x: f64) -> f64 {
 
 /// Evaluates the four limits for a setup. Never panics; every figure is finite.
 pub fn evaluate(setup: &Setup) -> Evaluation {
+    let r0 = turbulence::spherical_wave_r0(
+        &setup.profile,
+        SlantPath {
+            camera_altitude_m: setup.geometry.height_m,
+            length_m: finite(setup.geometry.slant_range_m()),
+        },
+        setup.wavelength_m,
+    );
+    evaluate_through(setup, r0)
+}
+
+/// [`evaluate`] with the path's Fried parameter already known: for solves that change only the
+/// lens, which leaves the air path (and so r0, the costly path integral) as it is.
+pub fn evaluate_through(setup: &Setup, r0: Option<f64>) -> Evaluation {
     let pitch = finite(setup.pixel_pitch_m());
     let aperture = finite(optics::aperture_diameter(setup.focal_m, setup.f_number));
     let geometry = setup.geometry;
@@ -177,14 +191,6 @@ pub fn evaluate(setup: &Setup) -> Evaluation {
     let sin_elev = elevation.sin().max(1e-6);
 
     let rayleigh = finite(optics::rayleigh_angle(setup.wavelength_m, aperture));
-    let r0 = turbulence::spherical_wave_r0(
-        &setup.profile,
-        SlantPath {
-            camera_altitude_m: geometry.height_m,
-            length_m: range,
-        },
-        setup.wavelength_m,
-    );
     let exposure = Exposure::choose(r0, setup.exposure_s, aperture, setup.wavelength_m, range);
     let seeing = finite(turbulence::seeing_angle(setup.wavelength_m, r0));
     // Smear on the target during the exposure (resolution-model §4): the camera's ground speed, the
