@@ -5,5 +5,6 @@ pub mod chain;
 pub mod engine;
 pub mod geometry;
 pub mod optics;
+pub mod roots;
 pub mod target;
 pub mod turbulence;

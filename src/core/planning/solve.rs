@@ -7,6 +7,7 @@
 
 use crate::core::physics::engine::{evaluate, evaluate_through, Evaluation, Limit, Setup};
 use crate::core::physics::geometry::Geometry;
+use crate::core::physics::roots;
 use crate::core::physics::target::{ratio_for, CdModel, Task};
 use serde::Serialize;
 
@@ -117,50 +118,9 @@ impl Sweep {
     }
 
     /// The last position in [`lo`, `hi`] where `value` is not negative (it is at `lo`, not at
-    /// `hi`), to a relative width of 1e−9: the Illinois form of regula falsi, which takes a handful
-    /// of evaluations where bisection takes some twenty-six; its step is kept a thousandth of the
-    /// bracket inside the ends, and halving the stale end's value keeps a jump bracketed.
-    fn refine(&self, mut lo: f64, mut hi: f64, value: impl Fn(&Evaluation) -> f64) -> f64 {
-        let at = |x: f64| value(&evaluate(&self.setup_at(x)));
-        let (mut v_lo, mut v_hi) = (at(lo), at(hi));
-        let mut side = 0i8;
-        for _ in 0..BISECTIONS {
-            let width = hi - lo;
-            if width <= 1e-9 * hi {
-                break;
-            }
-            let secant = if v_lo.is_finite() && v_hi.is_finite() && v_lo > v_hi {
-                lo + width * v_lo / (v_lo - v_hi)
-            } else {
-                f64::NAN
-            };
-            // Kept a thousandth of the bracket inside its ends, so each step shrinks it.
-            let mid = if secant.is_finite() {
-                secant.clamp(lo + 1e-3 * width, hi - 1e-3 * width)
-            } else {
-                0.5 * (lo + hi)
-            };
-            let v = at(mid);
-            if v == 0.0 {
-                return mid;
-            }
-            if v >= 0.0 {
-                lo = mid;
-                v_lo = v;
-                if side == 1 {
-                    v_hi *= 0.5;
-                }
-                side = 1;
-            } else {
-                hi = mid;
-                v_hi = v;
-                if side == -1 {
-                    v_lo *= 0.5;
-                }
-                side = -1;
-            }
-        }
-        lo
+    /// `hi`), to a relative width of 1e−9, by regula falsi ([`roots::last_not_negative`]).
+    fn refine(&self, lo: f64, hi: f64, value: impl Fn(&Evaluation) -> f64) -> f64 {
+        roots::last_not_negative(lo, hi, |x| value(&evaluate(&self.setup_at(x))), 1e-9)
     }
 
     /// The greatest position along the axis at which `need` is met.
