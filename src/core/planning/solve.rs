@@ -137,7 +137,7 @@ impl Sweep {
         };
         match self.table.iter().rposition(|(_, e)| meets(e)) {
             None => {
-                let forbidden_by = need.failing_limit(&first);
+                let forbidden_by = need.failing_limit(&first, true);
                 Reach::Nowhere {
                     forbidden_by,
                     best_m: need.best_figure(&first),
@@ -151,7 +151,7 @@ impl Sweep {
                 let beyond = evaluate(&self.setup_at(x * (1.0 + 1e-6)));
                 Reach::UpTo {
                     position_m: x,
-                    bound_by: need.failing_limit(&beyond),
+                    bound_by: need.failing_limit(&beyond, false),
                 }
             }
         }
@@ -267,13 +267,13 @@ impl Need {
         }
     }
 
-    /// The limit that keeps an evaluation from the need: for the detail, motion when it alone is
-    /// too large (it is the one that does not shrink close in), else the governing limit (the
-    /// largest part of the GRD); for the GSD, sampling.
-    fn failing_limit(&self, e: &Evaluation) -> Limit {
+    /// The limit that keeps an evaluation from the need: for the detail, the governing limit (the
+    /// largest part of the GRD), or at the near end of a sweep (`nearest`) motion when it alone is
+    /// too large, as it does not shrink close in; for the GSD, sampling.
+    fn failing_limit(&self, e: &Evaluation, nearest: bool) -> Limit {
         let k = self.plane.stretch(e.look_angle_deg);
         match self.detail_m {
-            Some(d) if e.limits.motion * k > d => Limit::Motion,
+            Some(d) if nearest && e.limits.motion * k > d => Limit::Motion,
             Some(d) if e.resolved_m * k > d => e.governing,
             _ => Limit::Sampling,
         }
