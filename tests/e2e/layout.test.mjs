@@ -1,11 +1,9 @@
 // The planner screen at a desktop and a phone size: screenshots for a person to look at (written to
 // tests/e2e/artifacts/, not compared), touch targets of at least 44 px, no sideways scrolling on a
-// phone, and a benchmark of how soon a typed height is on screen (printed, never pass/fail).
+// phone (the page's speed is measured in speed.test.mjs).
 import { after, before, test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdirSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
-import { ROOT, artifact, start } from './helpers.mjs';
+import { artifact, start } from './helpers.mjs';
 
 const VIEWPORTS = {
   desktop: { width: 1024, height: 768 },
@@ -56,45 +54,3 @@ for (const [name, viewport] of Object.entries(VIEWPORTS)) {
     await page.context().close();
   });
 }
-
-test('benchmark: from typing a height to the next frame showing it (not pass/fail)', async (t) => {
-  const page = await app.open('v=1&sw=13.2&sh=8.8&cols=5472&rows=3648&focal=8.8&fnum=4&h=80&gd=0&air=power&cn2=1e-13&cexp=-1.333&speed=8&shutter=0.001&aw=400&al=600&need=0.03&tdim=0.75');
-  // Inside the page: set #in-h, dispatch the input event, wait for the DOM to show the new slant
-  // range (equal to the height when looking straight down), then for the next animation frame.
-  const times = await page.evaluate(async (runs) => {
-    const input = document.querySelector('#in-h');
-    const slant = () => Number(document.querySelector('[data-key=slant_range_m]').getAttribute('data-si'));
-    const out = [];
-    for (let i = 0; i <= runs; i++) {
-      const height = 81 + i;
-      const t0 = performance.now();
-      input.value = String(height);
-      input.dispatchEvent(new InputEvent('input', { bubbles: true, inputType: 'insertText', data: String(height) }));
-      await new Promise((resolve, reject) => {
-        const timer = setTimeout(() => reject(new Error(`height ${height} never shown`)), 5000);
-        const check = () => {
-          if (Math.abs(slant() - height) <= 1e-9 * height) { clearTimeout(timer); observer?.disconnect(); resolve(); return true; }
-          return false;
-        };
-        let observer = null;
-        if (!check()) {
-          observer = new MutationObserver(check);
-          observer.observe(document.body, { subtree: true, attributes: true, childList: true, characterData: true });
-        }
-      });
-      await new Promise((resolve) => requestAnimationFrame(() => resolve()));
-      if (i > 0) out.push(performance.now() - t0); // the first run warms up and is left out
-    }
-    return out;
-  }, 20);
-  assert.equal(times.length, 20);
-  const sorted = [...times].sort((a, b) => a - b);
-  const median = (sorted[9] + sorted[10]) / 2;
-  const max = sorted[sorted.length - 1];
-  const line = `input on #in-h to next frame with the new value, ${times.length} runs: median ${median.toFixed(1)} ms, max ${max.toFixed(1)} ms`;
-  t.diagnostic(`benchmark: ${line}`);
-  mkdirSync(join(ROOT, 'target'), { recursive: true });
-  writeFileSync(join(ROOT, 'target', 'e2e-timings.txt'), `${line}\nall (ms): ${times.map((t) => t.toFixed(1)).join(' ')}\n`);
-  assert.deepEqual(page.errors, []);
-  await page.context().close();
-});
