@@ -80,6 +80,8 @@ impl Reducible for State {
         if raw == self.raw {
             return self;
         }
-        Rc::new(State::new(raw))
+        // A keystroke along the solve axis keeps the sweep and its solves.
+        let plan = Rc::new(Plan::from_raw_after(&raw, &self.plan));
+        Rc::new(State { raw, plan })
     }
 }

@@ -2,7 +2,7 @@
 //! sweep for the solves and the chart, the survey and its layout, the GeoJSON export and the
 //! report — so that the page and the printed sheet share one computation per scenario.
 
-use crate::core::contract::report::Report;
+use crate::core::contract::report::{Report, SweepFigures};
 use crate::core::contract::scenario::{FieldError, RawScenario, Scenario};
 use crate::core::formats::geojson::{survey_geojson_checked, ExportProblem};
 use crate::core::physics::engine::{evaluate, Evaluation, Setup};
@@ -16,6 +16,8 @@ pub struct Plan {
     pub setup: Setup,
     pub evaluation: Evaluation,
     pub sweep: Sweep,
+    /// The backward solves on the sweep.
+    pub sweep_figures: SweepFigures,
     /// What the survey was planned from.
     pub survey_inputs: SurveyInputs,
     /// The survey drawn to scale, when it has counts.
@@ -34,19 +36,52 @@ impl Plan {
 
     /// Computes the whole plan for a validated scenario.
     pub fn build(scenario: Scenario, errors: Vec<FieldError>) -> Plan {
+        Plan::build_after(scenario, errors, None)
+    }
+
+    /// Validates raw text and computes the plan, keeping what `previous` computed that the change
+    /// cannot have changed: moving along the solve axis (typing the height, or the ground
+    /// distance) keeps the sweep, and with the same need and target its solves. The result equals
+    /// [`Plan::from_raw`]'s (tests/plan.rs).
+    pub fn from_raw_after(raw: &RawScenario, previous: &Plan) -> Plan {
+        let (scenario, errors) = Scenario::from_raw(raw);
+        Plan::build_after(scenario, errors, Some(previous))
+    }
+
+    fn build_after(scenario: Scenario, errors: Vec<FieldError>, previous: Option<&Plan>) -> Plan {
         let setup = scenario.setup();
         let evaluation = evaluate(&setup);
-        let sweep = Sweep::new(setup, scenario.solve_axis());
+        let axis = scenario.solve_axis();
+        let kept = previous.and_then(|p| p.sweep.moved_to(setup, axis).map(|sweep| (p, sweep)));
+        let (sweep, sweep_figures) = match kept {
+            Some((p, sweep))
+                if p.scenario.need() == scenario.need()
+                    && p.scenario.target_m == scenario.target_m
+                    && p.scenario.cd_model == scenario.cd_model =>
+            {
+                (sweep, p.sweep_figures.clone())
+            }
+            Some((_, sweep)) => {
+                let figures = SweepFigures::new(&scenario, &sweep);
+                (sweep, figures)
+            }
+            None => {
+                let sweep = Sweep::new(setup, axis);
+                let figures = SweepFigures::new(&scenario, &sweep);
+                (sweep, figures)
+            }
+        };
         let survey_inputs = scenario.survey_inputs(evaluation.gsd_m);
         let survey = plan_survey(&survey_inputs);
         let layout = layout(&survey, &survey_inputs);
         let geojson = survey_geojson_checked(&survey_inputs, &survey, &scenario.name);
-        let report = Report::new(&scenario, &setup, &evaluation, &sweep, &survey, errors);
+        let report = Report::new(&scenario, &setup, &evaluation, &sweep, &sweep_figures, &survey, errors);
         Plan {
             scenario,
             setup,
             evaluation,
             sweep,
+            sweep_figures,
             survey_inputs,
             layout,
             geojson,

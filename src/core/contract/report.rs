@@ -10,7 +10,7 @@ use crate::core::physics::target::{people_level, task_chances, CdModel, PeopleLe
 use crate::core::physics::turbulence::{rytov_variance, SlantPath};
 use crate::core::planning::cautions::{self, CautionInputs};
 use crate::core::planning::solve::{
-    focal_needed, task_ranges, Axis, Crossing, EnvelopeChange, FocalNeed, Need, Reach, Sweep, TargetPlane, TaskRange,
+    focal_needed, task_ranges, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep, TargetPlane, TaskRange,
 };
 use crate::core::planning::survey::SurveyPlan;
 use crate::core::words::notes::{self, CautionWords, SurveyWords};
@@ -116,34 +116,59 @@ pub struct Report {
 }
 
 /// What a target will look like: the cycles across it under `period_on_plane` (the GRD on its
-/// plane, in its coarser direction), the chance of each task, and each task's greatest height or range; empty
-/// without a target.
-fn target_figures(
-    scenario: &Scenario,
-    period_on_plane: f64,
-    sweep: &Sweep,
-    need: &Need,
-) -> (Option<f64>, Vec<TaskChance>, Vec<TaskRange>) {
+/// plane, in its coarser direction) and the chance of each task; empty without a target. Its task
+/// ranges come with the sweep's figures.
+fn target_figures(scenario: &Scenario, period_on_plane: f64) -> (Option<f64>, Vec<TaskChance>) {
     let Some(t) = scenario.target_m else {
-        return (None, Vec::new(), Vec::new());
+        return (None, Vec::new());
     };
     let (n, chances) = task_chances(t, period_on_plane, scenario.cd_model);
-    (Some(n), chances, task_ranges(sweep, t, need.plane, scenario.cd_model))
+    (Some(n), chances)
+}
+
+/// What the backward solves find on a sweep: they depend on the sweep, the need and the target,
+/// not on where along the axis the plan stands, so a plan that only moves along the axis keeps them.
+#[derive(Clone, Debug, PartialEq)]
+pub struct SweepFigures {
+    pub reach: Option<Reach>,
+    pub diffraction_crossing: Crossing,
+    pub turbulence_crossing: Crossing,
+    pub envelope_changes: Vec<EnvelopeChange>,
+    pub task_ranges: Vec<TaskRange>,
+}
+
+impl SweepFigures {
+    /// The solves of `scenario`'s need and target on `sweep`.
+    pub fn new(scenario: &Scenario, sweep: &Sweep) -> SweepFigures {
+        let need = scenario.need();
+        SweepFigures {
+            reach: need.is_given().then(|| sweep.reach(&need)),
+            diffraction_crossing: sweep.crossing(Limit::Diffraction, Limit::Sampling),
+            turbulence_crossing: sweep.crossing(Limit::Turbulence, Limit::Sampling),
+            envelope_changes: sweep.envelope_changes(),
+            task_ranges: scenario
+                .target_m
+                .map(|t| task_ranges(sweep, t, need.plane, scenario.cd_model))
+                .unwrap_or_default(),
+        }
+    }
 }
 
 impl Report {
-    /// The report of a validated scenario from its engine setup, evaluation, sweep and survey plan.
+    /// The report of a validated scenario from its engine setup, evaluation, sweep, the solves on
+    /// it and the survey plan.
     pub fn new(
         scenario: &Scenario,
         setup: &Setup,
         e: &Evaluation,
         sweep: &Sweep,
+        figures: &SweepFigures,
         survey: &SurveyPlan,
         errors: Vec<FieldError>,
     ) -> Report {
         let need = scenario.need();
         let plane_stretch = need.plane.stretch(e.look_angle_deg);
-        let reach = need.is_given().then(|| sweep.reach(&need));
+        let reach = figures.reach;
         let reach_m = reach.and_then(|r| r.position_m());
         let focal = need.is_given().then(|| focal_needed(e, setup, &need));
         let focal_needed_m = match focal {
@@ -151,7 +176,7 @@ impl Report {
             _ => None,
         };
         let detail_on_plane_m = e.resolved_m * plane_stretch;
-        let (target_cycles, target_chances, task_ranges) = target_figures(scenario, detail_on_plane_m, sweep, &need);
+        let (target_cycles, target_chances) = target_figures(scenario, detail_on_plane_m);
         let px_per_m = if e.gsd_m > 0.0 { 1.0 / e.gsd_m } else { 0.0 };
         let rytov = rytov_variance(
             &setup.profile,
@@ -224,14 +249,14 @@ impl Report {
             reach_m,
             focal_needed: focal,
             focal_needed_m,
-            diffraction_crossing: sweep.crossing(Limit::Diffraction, Limit::Sampling),
-            turbulence_crossing: sweep.crossing(Limit::Turbulence, Limit::Sampling),
-            envelope_changes: sweep.envelope_changes(),
+            diffraction_crossing: figures.diffraction_crossing,
+            turbulence_crossing: figures.turbulence_crossing,
+            envelope_changes: figures.envelope_changes.clone(),
             target_m: scenario.target_m,
             target_cycles,
             target_chances,
             cdm: scenario.cd_model,
-            task_ranges,
+            task_ranges: figures.task_ranges.clone(),
             identifies_people: people == Some(PeopleLevel::Identification),
             px_per_m,
             people_level: people,

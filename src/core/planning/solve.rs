@@ -71,6 +71,29 @@ impl Sweep {
         sweep
     }
 
+    /// This sweep moved to `base`, when its table would come out the same (`None` otherwise):
+    /// the table depends on everything but the position along the axis, so a change of the height
+    /// (looking at the same angle) or of the ground distance (from the same height) keeps it.
+    pub fn moved_to(&self, base: Setup, axis: Axis) -> Option<Sweep> {
+        if axis != self.axis {
+            return None;
+        }
+        let same_path = match axis {
+            Axis::Height => base.geometry.look_angle_rad().to_bits() == self.look_angle_rad.to_bits(),
+            Axis::GroundDistance => base.geometry.height_m.to_bits() == self.base.geometry.height_m.to_bits(),
+        };
+        let rest_same = Setup {
+            geometry: self.base.geometry,
+            ..base
+        } == self.base;
+        let look = base.geometry.look_angle_rad();
+        (same_path && rest_same).then(|| Sweep {
+            base,
+            look_angle_rad: if look.is_finite() { look } else { 0.0 },
+            ..self.clone()
+        })
+    }
+
     /// The setup at position `x` along the axis.
     pub fn setup_at(&self, x: f64) -> Setup {
         let geometry = match self.axis {
