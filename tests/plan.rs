@@ -4,6 +4,7 @@
 
 use sharpfield::core::contract::plan::Plan;
 use sharpfield::core::contract::scenario::RawScenario;
+use sharpfield::core::words::chart;
 
 const BASES: [&str; 4] = [
     // A drone looking down, with a need and a target.
@@ -64,4 +65,41 @@ fn moving_along_the_axis_keeps_the_sweep() {
     next.set("focal", "12");
     let other = first.sweep.moved_to(Plan::from_raw(&next).setup, first.sweep.axis);
     assert!(other.is_none(), "another lens needs a new table");
+}
+
+/// The chart of a plan, with the marks the page gives it.
+fn chart_of(plan: &Plan, previous: Option<(&Plan, &chart::Chart)>) -> chart::Chart {
+    let r = &plan.report;
+    let crossings: Vec<f64> = r.envelope_changes.iter().map(|c| c.position_m).collect();
+    let tasks: Vec<_> = r.task_ranges.iter().filter_map(|t| Some((t.task, t.p50_m?))).collect();
+    let marks = chart::Marks {
+        need_m: r.need_m.map(|n| n / r.plane_stretch),
+        reach_m: r.reach_m,
+        crossings: &crossings,
+        tasks: &tasks,
+    };
+    chart::build_after(
+        &plan.sweep,
+        &marks,
+        plan.scenario.units,
+        previous.map(|(p, c)| (&p.sweep, c)),
+    )
+}
+
+#[test]
+fn a_chart_after_another_equals_a_fresh_one() {
+    for base in BASES {
+        let first = Plan::from_raw(&raw(base));
+        let first_chart = chart_of(&first, None);
+        for (key, value) in CHANGES {
+            let mut next = raw(base);
+            next.set(key, value);
+            let plan = Plan::from_raw_after(&next, &first);
+            assert_eq!(
+                chart_of(&plan, Some((&first, &first_chart))),
+                chart_of(&plan, None),
+                "{base} then {key}={value}"
+            );
+        }
+    }
 }

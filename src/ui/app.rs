@@ -1,5 +1,6 @@
 //! The root component: one state, the input groups, the results, and the browser effects.
 
+use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::RawScenario;
 use crate::core::formats::qr::qr_svg;
 use crate::core::presets::demo;
@@ -45,15 +46,19 @@ pub fn app() -> Html {
 
     let snapshot: Rc<State> = Rc::new((*state).clone());
 
-    // The chart is drawn on screen and on the printed sheet: compute it once per scenario.
+    // The chart is drawn on screen and on the printed sheet: compute it once per scenario, reusing
+    // the last chart's samples when only the position along the axis moved.
+    let last_chart = use_mut_ref(|| None::<(Rc<Plan>, Rc<chart::Chart>)>);
     let chart = {
         let plan = snapshot.plan.clone();
+        let last_chart = last_chart.clone();
         use_memo(state.raw.clone(), move |_| {
             let r = &plan.report;
             let crossings: Vec<f64> = r.envelope_changes.iter().map(|c| c.position_m).collect();
             // The need is on the target's plane; the chart draws limits in the plane normal to the view.
             let tasks: Vec<_> = r.task_ranges.iter().filter_map(|t| Some((t.task, t.p50_m?))).collect();
-            chart::build(
+            let previous = last_chart.borrow().clone();
+            let built = Rc::new(chart::build_after(
                 &plan.sweep,
                 &chart::Marks {
                     need_m: r.need_m.map(|n| n / r.plane_stretch),
@@ -62,7 +67,10 @@ pub fn app() -> Html {
                     tasks: &tasks,
                 },
                 plan.scenario.units,
-            )
+                previous.as_ref().map(|(p, c)| (&p.sweep, &**c)),
+            ));
+            *last_chart.borrow_mut() = Some((plan.clone(), built.clone()));
+            built
         })
     };
     let on_print = Callback::from(|_: ()| browser::print());
@@ -89,14 +97,14 @@ pub fn app() -> Html {
                 }
                 <Results state={snapshot.clone()} />
                 <Cautions state={snapshot.clone()} />
-                <LimitsChart state={snapshot.clone()} chart={chart.clone()} />
+                <LimitsChart state={snapshot.clone()} chart={(*chart).clone()} />
                 <SolvePanel state={snapshot.clone()} />
                 <TargetPanel state={snapshot.clone()} />
                 <SurveyPanel state={snapshot.clone()} />
                 <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} {on_print} link={link.clone()} qr={qr.clone()} />
             </div>
         </main>
-        <PrintSheet state={snapshot.clone()} chart={chart.clone()} qr={qr.clone()} />
+        <PrintSheet state={snapshot.clone()} chart={(*chart).clone()} qr={qr.clone()} />
         <footer class="foot">
             <p>{ "Sharpfield estimates; it does not replace a test flight, local rules or licensed practice. Sources and limits: see the README." }</p>
         </footer>

@@ -106,6 +106,11 @@ impl Sweep {
         self.base.with_geometry(geometry)
     }
 
+    /// The setup the sweep passes through.
+    pub fn base(&self) -> Setup {
+        self.base
+    }
+
     /// Where the base setup sits on the axis.
     pub fn current(&self) -> f64 {
         match self.axis {

@@ -1,7 +1,7 @@
 //! Geometry of the chart of the four limits against height (or ground distance), computed in plain
 //! Rust so it is tested natively; the UI only turns it into SVG elements.
 
-use crate::core::physics::engine::{evaluate, Limit};
+use crate::core::physics::engine::{evaluate, Evaluation, Limit};
 use crate::core::physics::target::Task;
 use crate::core::planning::cautions::COMMON_HEIGHT_CAP_M;
 use crate::core::planning::solve::{Axis, Sweep};
@@ -68,6 +68,8 @@ pub struct Chart {
     pub y_markers: Vec<Marker>,
     /// The largest x shown, in metres.
     pub x_max_m: f64,
+    /// The evaluations the curves are drawn from, one per sample, kept for the next chart.
+    samples: Vec<Evaluation>,
 }
 
 /// A "nice" step (1, 2 or 5 × 10ⁿ) that splits `span` into about `count` parts.
@@ -185,11 +187,24 @@ pub struct Marks<'a> {
 
 /// Builds the chart for a sweep with its marks.
 pub fn build(sweep: &Sweep, marks: &Marks, units: Units) -> Chart {
+    build_after(sweep, marks, units, None)
+}
+
+/// [`build`], reusing the samples of `previous` (a chart and the sweep it was drawn for) when the
+/// new sweep has the same table and the axis spans as far: then only the marks move. The result
+/// equals [`build`]'s.
+pub fn build_after(sweep: &Sweep, marks: &Marks, units: Units, previous: Option<(&Sweep, &Chart)>) -> Chart {
     let (need_m, reach_m, crossings) = (marks.need_m, marks.reach_m, marks.crossings);
     let axis = sweep.axis;
     let x_max = x_extent(axis, sweep.current(), reach_m);
     let xs: Vec<f64> = (1..=SAMPLES).map(|i| x_max * i as f64 / SAMPLES as f64).collect();
-    let evaluations: Vec<_> = xs.iter().map(|&x| evaluate(&sweep.setup_at(x))).collect();
+    let kept = previous.filter(|(old_sweep, old_chart)| {
+        old_chart.x_max_m.to_bits() == x_max.to_bits() && old_sweep.moved_to(sweep.base(), axis).is_some()
+    });
+    let evaluations: Vec<Evaluation> = match kept {
+        Some((_, old_chart)) => old_chart.samples.clone(),
+        None => xs.iter().map(|&x| evaluate(&sweep.setup_at(x))).collect(),
+    };
 
     let envelope_max = evaluations
         .iter()
@@ -268,6 +283,7 @@ pub fn build(sweep: &Sweep, marks: &Marks, units: Units) -> Chart {
         x_markers,
         y_markers,
         x_max_m: x_max,
+        samples: evaluations,
     }
 }
 
