@@ -25,6 +25,16 @@ impl Task {
         Task::Identification,
     ];
 
+    /// The report's word for the task (as serde writes it).
+    pub fn key(self) -> &'static str {
+        match self {
+            Task::Detection => "detection",
+            Task::Orientation => "orientation",
+            Task::Recognition => "recognition",
+            Task::Identification => "identification",
+        }
+    }
+
     /// Johnson's cycles across the critical dimension for a 50 % chance (Johnson 1958).
     pub fn n50(self) -> f64 {
         match self {

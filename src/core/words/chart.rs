@@ -290,7 +290,7 @@ pub fn build_after(sweep: &Sweep, marks: &Marks, units: Units, previous: Option<
 fn capitalise(text: &str) -> String {
     let mut chars = text.chars();
     match chars.next() {
-        Some(c) => c.to_uppercase().chain(chars).collect(),
+        Some(c) => std::iter::once(c.to_ascii_uppercase()).chain(chars).collect(),
         None => String::new(),
     }
 }

@@ -15,11 +15,12 @@ use crate::core::words::units::Units;
 use serde::Serialize;
 
 /// `text` with its first letter in lower case, for a title used inside a sentence (so that
-/// "GSD" keeps its capitals).
+/// "GSD" keeps its capitals). ASCII only: every title here starts with an ASCII letter, and the
+/// Unicode case tables would cost the page several kilobytes.
 pub fn lower_first(text: &str) -> String {
     let mut chars = text.chars();
     match chars.next() {
-        Some(c) => c.to_lowercase().chain(chars).collect(),
+        Some(c) => std::iter::once(c.to_ascii_lowercase()).chain(chars).collect(),
         None => String::new(),
     }
 }
@@ -159,6 +160,16 @@ pub fn task(task: Task) -> &'static str {
         Task::Orientation => "tell which way it lies",
         Task::Recognition => "tell what kind of thing it is (a person, a vehicle, an animal)",
         Task::Identification => "tell which kind within its class (a tractor, not a truck)",
+    }
+}
+
+/// The task's name, as a heading.
+pub fn task_name(task: Task) -> &'static str {
+    match task {
+        Task::Detection => "Detection",
+        Task::Orientation => "Orientation",
+        Task::Recognition => "Recognition",
+        Task::Identification => "Identification",
     }
 }
 

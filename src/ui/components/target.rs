@@ -48,8 +48,8 @@ pub fn target_panel(props: &TargetProps) -> Html {
                 <thead><tr><th scope="col">{ "Task" }</th><th scope="col">{ "Cycles for 50 %" }</th><th scope="col">{ "Chance" }</th></tr></thead>
                 <tbody>
                 { for report.target_chances.iter().map(|c| html! {
-                    <tr data-task={format!("{:?}", c.task).to_lowercase()}>
-                        <th scope="row">{ format!("{:?}", c.task) }<br/><small>{ notes::task(c.task) }</small></th>
+                    <tr data-task={c.task.key()}>
+                        <th scope="row">{ notes::task_name(c.task) }<br/><small>{ notes::task(c.task) }</small></th>
                         <td>{ format::significant(c.cycles_needed) }</td>
                         <td data-si={c.probability.to_string()}>{ format::percent(c.probability) }</td>
                     </tr>
@@ -62,8 +62,8 @@ pub fn target_panel(props: &TargetProps) -> Html {
                     <thead><tr><th scope="col">{ "Task" }</th><th scope="col">{ "50 %" }</th><th scope="col">{ "80 %" }</th></tr></thead>
                     <tbody>
                     { for report.task_ranges.iter().enumerate().map(|(i, t)| html! {
-                        <tr data-task={format!("{:?}", t.task).to_lowercase()}>
-                            <th scope="row">{ format!("{:?}", t.task) }</th>
+                        <tr data-task={t.task.key()}>
+                            <th scope="row">{ notes::task_name(t.task) }</th>
                             <td>{ range_cell(&t.p50, format!("task_ranges.{i}.p50_m"), units) }</td>
                             <td>{ range_cell(&t.p80, format!("task_ranges.{i}.p80_m"), units) }</td>
                         </tr>
