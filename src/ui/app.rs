@@ -27,6 +27,9 @@ fn initial_raw() -> RawScenario {
     browser::scenario_from_location().unwrap_or_else(|| demo::pasture_survey().to_raw())
 }
 
+/// How long typing must pause before the QR code is drawn again (ms).
+const QR_PAUSE_MS: u32 = 250;
+
 /// The app.
 #[function_component(App)]
 pub fn app() -> Html {
@@ -73,10 +76,37 @@ pub fn app() -> Html {
             built
         })
     };
-    let on_print = Callback::from(|_: ()| browser::print());
-    // The link to this scenario and its QR code, shown on screen and printed.
+    // The link to this scenario and its QR code, shown on screen and printed. The code is the
+    // costliest drawing of a keystroke, so it follows the link once typing pauses: at once for the
+    // first link, then QR_PAUSE_MS after the last change (and at once before printing).
     let link = browser::link_to(&state.raw);
-    let qr = use_memo(link.clone(), |link| qr_svg(link));
+    let qr_state = use_state(|| (link.clone(), Rc::new(qr_svg(&link))));
+    {
+        let qr_state = qr_state.clone();
+        use_effect_with(link.clone(), move |link| {
+            let timer = (qr_state.0 != *link).then(|| {
+                let (qr_state, link) = (qr_state.clone(), link.clone());
+                gloo::timers::callback::Timeout::new(QR_PAUSE_MS, move || {
+                    let code = Rc::new(qr_svg(&link));
+                    qr_state.set((link, code));
+                })
+            });
+            move || drop(timer)
+        });
+    }
+    let on_print = {
+        let (qr_state, link) = (qr_state.clone(), link.clone());
+        Callback::from(move |_: ()| {
+            if qr_state.0 == link {
+                browser::print();
+            } else {
+                // Draw the current link's code first; print once the page shows it.
+                qr_state.set((link.clone(), Rc::new(qr_svg(&link))));
+                gloo::timers::callback::Timeout::new(50, browser::print).forget();
+            }
+        })
+    };
+    let qr = qr_state.1.clone();
 
     let report = &snapshot.plan.report;
     let units = snapshot.plan.scenario.units;
