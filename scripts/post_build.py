@@ -39,7 +39,9 @@ def main() -> int:
     if "CSP_PLACEHOLDER" not in html:
         print("post_build: index.html has no CSP_PLACEHOLDER", file=sys.stderr)
         return 1
-    html = html.replace("CSP_PLACEHOLDER", POLICY.format(hashes=hashes))
+    # Trunk's minifier may have dropped the quotes around the placeholder; the policy has spaces
+    # and single quotes, so it is written in double quotes either way.
+    html = re.sub(r"""(["']?)CSP_PLACEHOLDER\1""", lambda _: '"%s"' % POLICY.format(hashes=hashes), html)
     with open(index_path, "w", encoding="utf-8") as f:
         f.write(html)
 

@@ -10,6 +10,7 @@ import gzip
 import os
 import re
 import sys
+from html.parser import HTMLParser
 
 # Gzipped bytes the first load should not pass (issue 11: a field tablet on a weak mobile link).
 FIRST_LOAD_BUDGET = 250_000
@@ -19,21 +20,40 @@ def gz(data: bytes) -> int:
     return len(gzip.compress(data, 9, mtime=0))
 
 
+class _Links(HTMLParser):
+    """The files a page loads before it runs: style sheets (not print-only), preloads, module
+    imports and the WebAssembly named in its inline loader."""
+
+    def __init__(self):
+        super().__init__()
+        self.names = []
+        self._in_script = False
+
+    def handle_starttag(self, tag, attrs):
+        a = dict(attrs)
+        if tag == "link" and a.get("rel") in ("stylesheet", "modulepreload", "preload") and a.get("media") != "print":
+            self.names.append(a.get("href") or "")
+        if tag == "script":
+            if a.get("src"):
+                self.names.append(a["src"])
+            self._in_script = True
+
+    def handle_endtag(self, tag):
+        if tag == "script":
+            self._in_script = False
+
+    def handle_data(self, data):
+        if self._in_script:
+            self.names += re.findall(r"""(?:from|import\()\s*['"]([^'"]+\.js)['"]""", data)
+            self.names += re.findall(r"""module_or_path:\s*['"]([^'"]+)['"]""", data)
+
+
 def first_load(root: str) -> list:
-    html = open(os.path.join(root, "index.html"), encoding="utf-8").read()
-    names = ["index.html"]
-    for tag in re.findall(r"<link\b[^>]*>", html):
-        rel = re.search(r'\brel="([^"]+)"', tag)
-        href = re.search(r'\bhref="([^"]+)"', tag)
-        if not rel or not href:
-            continue
-        if rel.group(1) in ("stylesheet", "modulepreload", "preload") and 'media="print"' not in tag:
-            names.append(href.group(1))
-    names += re.findall(r"""(?:from|import\()\s*['"]([^'"]+\.js)['"]""", html)
-    names += re.findall(r"""module_or_path:\s*['"]([^'"]+)['"]""", html)
-    seen = []
-    for name in names:
-        name = name.lstrip("./")
+    parser = _Links()
+    parser.feed(open(os.path.join(root, "index.html"), encoding="utf-8").read())
+    seen = ["index.html"]
+    for name in parser.names:
+        name = name[2:] if name.startswith("./") else name.lstrip("/")
         if name not in seen and os.path.isfile(os.path.join(root, name)):
             seen.append(name)
     return seen

@@ -84,8 +84,10 @@ function deploy(dir) {
   const marker = `build-${Date.now()}`;
   const indexPath = join(dir, 'index.html');
   const html = readFileSync(indexPath, 'utf8');
-  assert.ok(html.includes('<div id="app"></div>'));
-  writeFileSync(indexPath, html.replace('<div id="app"></div>', `<div id="app" data-build="${marker}"></div>`));
+  // The build may be minified: `<div id=app></div>`.
+  const mount = /<div id=("?)app\1><\/div>/;
+  assert.ok(mount.test(html), 'no app mount point in index.html');
+  writeFileSync(indexPath, html.replace(mount, `<div id="app" data-build="${marker}"></div>`));
   execFileSync('python3', [join(ROOT, 'scripts', 'post_build.py'), '--sw-only', dir]);
   return marker;
 }

@@ -161,9 +161,11 @@ test('the QR code is drawn in the page and changes with the scenario', async () 
 /** The Content-Security-Policy of the served index.html, as { directive: [sources] }. */
 async function servedPolicy() {
   const html = await (await fetch(`${app.origin}/`)).text();
-  const metas = [...html.matchAll(/<meta\s+http-equiv="Content-Security-Policy"\s+content="([^"]*)"/gi)];
+  // The build may be minified (attributes unquoted, in any order); the policy itself is always quoted.
+  const metas = [...html.matchAll(/<meta\b[^>]*>/gi)].map((m) => m[0]).filter((tag) => /http-equiv=["']?Content-Security-Policy/i.test(tag));
   assert.equal(metas.length, 1, 'not exactly one CSP meta tag');
-  const policy = Object.fromEntries(metas[0][1].split(';').map((d) => d.trim().split(/\s+/)).filter((d) => d[0]).map(([name, ...sources]) => [name, sources]));
+  const content = metas[0].match(/\bcontent="([^"]*)"/)?.[1] ?? '';
+  const policy = Object.fromEntries(content.split(';').map((d) => d.trim().split(/\s+/)).filter((d) => d[0]).map(([name, ...sources]) => [name, sources]));
   const inline = [...html.matchAll(/<script(?![^>]*\bsrc=)[^>]*>([\s\S]*?)<\/script>/g)].map((m) => `'sha256-${createHash('sha256').update(m[1]).digest('base64')}'`);
   return { html, policy, inline };
 }
