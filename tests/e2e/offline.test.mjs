@@ -8,7 +8,7 @@ import assert from 'node:assert/strict';
 import { execFileSync } from 'node:child_process';
 import { readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { ROOT, displayed, start } from './helpers.mjs';
+import { ROOT, displayed, start, typeInto } from './helpers.mjs';
 import { RENDERED, copyOfBuild, openPage, serveCacheable, serveDir, serviceWorkerOf, stopServer } from './offline-helpers.mjs';
 
 // Two scenarios of different kinds: the page must compute whichever the address holds.
@@ -157,6 +157,34 @@ test('loaded once, the app opens and computes with the server stopped; without t
 
   await control.context().close();
   await page.context().close();
+});
+
+test('a new build installs while a person works: the open page is neither reloaded nor loses what was typed', async () => {
+  const site = await servedCopy();
+  const page = await openPage(app.browser, `${site.origin}/?${SURVEY}`);
+  const oldVersion = await precached(page, site.dir);
+  // Work in progress: a height typed in, and a mark on the window that a reload would lose.
+  await page.evaluate(() => { window.workInProgress = 'kept'; });
+  await typeInto(page, '#in-h', '95');
+  await page.waitForFunction(() => document.querySelector('[data-key="slant_range_m"]')?.getAttribute('data-si') === '95');
+  deploy(site.dir);
+  const { version: newVersion } = serviceWorkerOf(site.dir);
+  try {
+    // The browser checks for a new worker now and then; ask it now, as it would on its own.
+    await page.evaluate(() => navigator.serviceWorker.getRegistration().then((r) => r.update()));
+    await poll(page, async ([fresh, old]) => {
+      const keys = await caches.keys();
+      return keys.includes(fresh) && !keys.includes(old);
+    }, [`sharpfield-${newVersion}`, `sharpfield-${oldVersion}`], 'the new build to install and activate');
+    assert.equal(await page.evaluate(() => window.workInProgress), 'kept', 'the page was reloaded');
+    assert.equal(await page.inputValue('#in-h'), '95', 'the typed height was lost');
+    assert.equal(await page.getAttribute('[data-key="slant_range_m"]', 'data-si'), '95');
+    assert.equal(await page.getAttribute('#app', 'data-build'), null, 'the open page was replaced by the new build');
+    assert.deepEqual(page.errors, []);
+  } finally {
+    await stopServer(site.server);
+    await page.context().close();
+  }
 });
 
 test('a new build is picked up: new worker, new page, old cache gone, and that works offline', async () => {
