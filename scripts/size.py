@@ -2,8 +2,9 @@
 """Size report of dist/: every file raw and gzipped (level 9), and the first load against its budget.
 
 The first load is what the page needs to show its first plan: index.html and what it links as a
-stylesheet (not one for print only), preloads, or imports in a script. Its budget is written here,
-in one place; the script exits with 1 when the first load is over it, which fails the test command.
+stylesheet (not one for print only), preloads, or imports in a script. An on-demand module is a
+worker's loader shim and what it loads. Their budgets are written here, in one place; the script
+exits with 1 when either is over, which fails the test command.
 Usage: size.py DIST OUT
 """
 import gzip
@@ -14,6 +15,8 @@ from html.parser import HTMLParser
 
 # Gzipped bytes the first load should not pass (issue 11: a field tablet on a weak mobile link).
 FIRST_LOAD_BUDGET = 250_000
+# Gzipped bytes each on-demand module (a worker's loader shim and what it loads) should not pass.
+ON_DEMAND_BUDGET = 100_000
 
 
 def gz(data: bytes) -> int:
@@ -59,6 +62,18 @@ def first_load(root: str) -> list:
     return seen
 
 
+def on_demand_modules(root: str) -> dict:
+    """Each worker loader shim trunk writes (`*_loader.js`) with the files it loads."""
+    modules = {}
+    for name in sorted(os.listdir(root)):
+        if name.endswith("_loader.js"):
+            text = open(os.path.join(root, name), encoding="utf-8").read()
+            parts = re.findall(r"""(?:importScripts|wasm_bindgen)\(\s*['"]([^'"]+)['"]""", text)
+            files = [name] + [p[2:] if p.startswith("./") else p for p in parts]
+            modules[name[: -len("_loader.js")]] = [f for f in files if os.path.isfile(os.path.join(root, f))]
+    return modules
+
+
 def main() -> int:
     root, out = sys.argv[1], sys.argv[2]
     rows = []
@@ -82,6 +97,12 @@ def main() -> int:
         lines.append("FAILED: the first load is over its budget by %d bytes" % (total - FIRST_LOAD_BUDGET))
     else:
         lines.append("within the budget, %d bytes to spare" % (FIRST_LOAD_BUDGET - total))
+    for module, files in on_demand_modules(root).items():
+        size = sum(sizes[f] for f in files)
+        lines.append("on-demand module %s (%s): %d bytes gzipped; budget %d" % (module, ", ".join(files), size, ON_DEMAND_BUDGET))
+        if size > ON_DEMAND_BUDGET:
+            over = True
+            lines.append("FAILED: the module %s is over its budget by %d bytes" % (module, size - ON_DEMAND_BUDGET))
     text = "\n".join(lines) + "\n"
     sys.stdout.write(text)
     os.makedirs(os.path.dirname(out), exist_ok=True)

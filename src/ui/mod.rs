@@ -7,6 +7,7 @@
 pub mod app;
 mod browser;
 mod components;
+pub mod export;
 pub mod state;
 
 use wasm_bindgen::JsCast;

@@ -159,6 +159,19 @@ test('loaded once, the app opens and computes with the server stopped; without t
   await page.context().close();
 });
 
+test('after one visit the on-demand export module works with the server stopped', async () => {
+  const site = await servedCopy();
+  const page = await openPage(app.browser, `${site.origin}/?${SURVEY}&lat=-36.85&lon=146.29`, { contextOptions: { acceptDownloads: true } });
+  await precached(page, site.dir);
+  await stopServer(site.server);
+  await page.reload();
+  await page.waitForSelector(RENDERED, { timeout: 15000 });
+  const [download] = await Promise.all([page.waitForEvent('download'), page.click('#survey .export button')]);
+  assert.equal(JSON.parse(readFileSync(await download.path(), 'utf8')).type, 'FeatureCollection');
+  assert.deepEqual(page.errors, []);
+  await page.context().close();
+});
+
 test('a new build installs while a person works: the open page is neither reloaded nor loses what was typed', async () => {
   const site = await servedCopy();
   const page = await openPage(app.browser, `${site.origin}/?${SURVEY}`);

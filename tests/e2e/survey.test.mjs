@@ -68,6 +68,39 @@ test('the GeoJSON download is a FeatureCollection of the area and every flight l
   await page.context().close();
 });
 
+test('the export is built by an on-demand module: not loaded with the page, loaded on the first export', async () => {
+  // No service worker here, so that every file the page asks for shows as its own request.
+  const context = await app.browser.newContext({ serviceWorkers: 'block', acceptDownloads: true });
+  const requested = [];
+  context.on('request', (r) => requested.push(new URL(r.url()).pathname));
+  const page = await context.newPage();
+  const errors = [];
+  page.on('pageerror', (e) => errors.push(String(e)));
+  await page.goto(`${app.origin}/?${FIELD}`);
+  await page.waitForSelector('[data-key="limit_m"]');
+  const module = (paths) => paths.filter((p) => p.includes('sharpfield-export'));
+  assert.deepEqual(module(requested), [], 'the export module came with the first load');
+  const [download] = await Promise.all([page.waitForEvent('download'), page.click('#survey .export button')]);
+  assert.match(download.suggestedFilename(), /\.geojson$/);
+  assert.deepEqual(module(requested).sort(), ['/sharpfield-export.js', '/sharpfield-export_bg.wasm', '/sharpfield-export_loader.js']);
+  // A second export asks the module already loaded.
+  const before = requested.length;
+  const [again] = await Promise.all([page.waitForEvent('download'), page.click('#survey .export button')]);
+  assert.equal(JSON.parse(readFileSync(await again.path(), 'utf8')).type, 'FeatureCollection');
+  assert.deepEqual(module(requested.slice(before)), [], 'the module was loaded twice');
+  assert.deepEqual(errors, []);
+  await context.close();
+});
+
+test('an area the export cannot write says why after the export is asked for, and the page goes on', async () => {
+  // Across the 180° meridian: only the geodesics of the export find it.
+  const page = await app.open(FIELD.replace(/lon=[^&]*/, 'lon=179.999'));
+  await page.click('#survey .export button');
+  await page.waitForFunction(() => /180° meridian/.test(document.querySelector('#survey .export')?.textContent ?? ''));
+  assert.deepEqual(page.errors, []);
+  await page.context().close();
+});
+
 test('bad survey inputs are named beside their field; nothing crashes', async () => {
   const page = await app.open(FIELD);
   const cases = [

@@ -1,10 +1,10 @@
 //! The plan: a scenario with everything computed from it once — the engine's evaluation, the
-//! sweep for the solves and the chart, the survey and its layout, the GeoJSON export and the
+//! sweep for the solves and the chart, the survey and its layout, whether it can be exported, and the
 //! report — so that the page and the printed sheet share one computation per scenario.
 
 use crate::core::contract::report::{Report, SweepFigures};
 use crate::core::contract::scenario::{FieldError, RawScenario, Scenario};
-use crate::core::formats::geojson::{survey_geojson_checked, ExportProblem};
+use crate::core::formats::geojson::{export_check, ExportProblem};
 use crate::core::physics::engine::{evaluate, Evaluation, Setup};
 use crate::core::planning::solve::Sweep;
 use crate::core::planning::survey::{layout, plan_survey, Layout, SurveyInputs};
@@ -22,8 +22,8 @@ pub struct Plan {
     pub survey_inputs: SurveyInputs,
     /// The survey drawn to scale, when it has counts.
     pub layout: Option<Layout>,
-    /// The survey as GeoJSON, or why it cannot be exported.
-    pub geojson: Result<String, ExportProblem>,
+    /// Whether the survey has what a GeoJSON export needs (the export itself is built on demand).
+    pub export_ready: Result<(), ExportProblem>,
     pub report: Report,
 }
 
@@ -74,7 +74,7 @@ impl Plan {
         let survey_inputs = scenario.survey_inputs(evaluation.gsd_m);
         let survey = plan_survey(&survey_inputs);
         let layout = layout(&survey, &survey_inputs);
-        let geojson = survey_geojson_checked(&survey_inputs, &survey, &scenario.name);
+        let export_ready = export_check(&survey_inputs);
         let report = Report::new(&scenario, &setup, &evaluation, &sweep, &sweep_figures, &survey, errors);
         Plan {
             scenario,
@@ -84,7 +84,7 @@ impl Plan {
             sweep_figures,
             survey_inputs,
             layout,
-            geojson,
+            export_ready,
             report,
         }
     }

@@ -200,16 +200,26 @@ fn area_properties(
     properties
 }
 
-/// The survey as a GeoJSON FeatureCollection (RFC 7946): the area polygon (one counter-clockwise
-/// outer ring) and each flight line as a LineString in flying order, with the line number and
-/// direction as properties. Lines are left out when the plan has no line count.
-pub fn survey_geojson_checked(inputs: &SurveyInputs, plan: &SurveyPlan, name: &str) -> Result<String, ExportProblem> {
+/// The origin and the area an export starts from.
+struct Ready {
+    lat0: f64,
+    lon0: f64,
+    width: f64,
+    length: f64,
+}
+
+/// Whether a survey has what an export needs (an origin and an area), without computing it: the
+/// problems that only the geodesics find (a pole, the 180° meridian) come with the export itself.
+pub fn export_check(inputs: &SurveyInputs) -> Result<(), ExportProblem> {
+    export_ready(inputs).map(|_| ())
+}
+
+fn export_ready(inputs: &SurveyInputs) -> Result<Ready, ExportProblem> {
     let lat0 = inputs.settings.latitude_deg.filter(|v| v.is_finite() && v.abs() < 90.0);
     let lon0 = inputs.settings.longitude_deg.filter(|v| v.is_finite());
     let (Some(lat0), Some(lon0)) = (lat0, lon0) else {
         return Err(ExportProblem::NoOrigin);
     };
-    let lon0 = wrap180(lon0);
     let usable = |v: Option<f64>| v.filter(|x| x.is_finite() && *x > 0.0);
     let (Some(width), Some(length)) = (
         usable(inputs.settings.area_width_m),
@@ -217,6 +227,24 @@ pub fn survey_geojson_checked(inputs: &SurveyInputs, plan: &SurveyPlan, name: &s
     ) else {
         return Err(ExportProblem::NoArea);
     };
+    Ok(Ready {
+        lat0,
+        lon0: wrap180(lon0),
+        width,
+        length,
+    })
+}
+
+/// The survey as a GeoJSON FeatureCollection (RFC 7946): the area polygon (one counter-clockwise
+/// outer ring) and each flight line as a LineString in flying order, with the line number and
+/// direction as properties. Lines are left out when the plan has no line count.
+pub fn survey_geojson_checked(inputs: &SurveyInputs, plan: &SurveyPlan, name: &str) -> Result<String, ExportProblem> {
+    let Ready {
+        lat0,
+        lon0,
+        width,
+        length,
+    } = export_ready(inputs)?;
     let heading = if inputs.settings.heading_deg.is_finite() {
         wrap360(inputs.settings.heading_deg)
     } else {

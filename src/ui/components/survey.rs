@@ -5,6 +5,7 @@ use crate::core::planning::survey::Layout;
 use crate::core::words::format;
 use crate::ui::browser;
 use crate::ui::components::results::value;
+use crate::ui::export;
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;
@@ -97,16 +98,31 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
     let units = scenario.units;
     let len = |v: f64| format::length(v, units);
     let spd = |v: f64| format::speed(v, units);
-    let export = plan.geojson.clone();
+    let ready = plan.export_ready;
+    // What the last export said, for the query it was asked for (a problem only the export finds).
+    let answer = use_state(|| None::<(String, String)>);
     let words = &plan.report.survey_words;
+    let query = scenario.to_query();
     let on_export = {
-        let export = export.clone();
+        let (answer, query) = (answer.clone(), query.clone());
         let name = scenario.name.clone();
         Callback::from(move |_| {
-            if let Ok(json) = &export {
-                browser::download(&browser::file_name(&name, "geojson"), "application/geo+json", json);
-            }
+            let (answer, asked) = (answer.clone(), query.clone());
+            let name = name.clone();
+            // Built by the on-demand module, which loads the first time this is pressed.
+            export::geojson(&query, move |result| match result {
+                Ok(json) => {
+                    browser::download(&browser::file_name(&name, "geojson"), "application/geo+json", &json);
+                    answer.set(None);
+                }
+                Err(problem) => answer.set(Some((asked, problem))),
+            });
         })
+    };
+    let problem = match (&ready, &*answer) {
+        (Err(problem), _) => Some(problem.message().to_string()),
+        (Ok(()), Some((asked, problem))) if *asked == query => Some(problem.clone()),
+        _ => None,
     };
     html! {
         <section class="panel" id="survey" aria-labelledby="survey-title">
@@ -137,8 +153,8 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
             { for words.survey_notes.iter().map(|n| html! { <p class="note">{ n.clone() }</p> }) }
             if let Some(l) = &plan.layout { { diagram(l, units, "screen") } }
             <p class="export">
-                <button type="button" onclick={on_export} disabled={export.is_err()}>{ "Download flight lines (GeoJSON)" }</button>
-                if let Err(problem) = export { <span class="note">{ format!(" {}", problem.message()) }</span> }
+                <button type="button" onclick={on_export} disabled={ready.is_err()}>{ "Download flight lines (GeoJSON)" }</button>
+                if let Some(problem) = problem { <span class="note">{ format!(" {problem}") }</span> }
             </p>
         </section>
     }
