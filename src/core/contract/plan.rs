@@ -52,24 +52,19 @@ impl Plan {
         let setup = scenario.setup();
         let evaluation = evaluate(&setup);
         let axis = scenario.solve_axis();
-        let kept = previous.and_then(|p| p.sweep.moved_to(setup, axis).map(|sweep| (p, sweep)));
-        let (sweep, sweep_figures) = match kept {
-            Some((p, sweep))
+        let (sweep, previous) = match previous.and_then(|p| p.sweep.moved_to(setup, axis).map(|sweep| (sweep, p))) {
+            Some((sweep, p)) => (sweep, Some(p)),
+            None => (Sweep::new(setup, axis), None),
+        };
+        let sweep_figures = match previous {
+            Some(p)
                 if p.scenario.need() == scenario.need()
                     && p.scenario.target_m == scenario.target_m
                     && p.scenario.cd_model == scenario.cd_model =>
             {
-                (sweep, p.sweep_figures.clone())
+                p.sweep_figures.clone()
             }
-            Some((_, sweep)) => {
-                let figures = SweepFigures::new(&scenario, &sweep);
-                (sweep, figures)
-            }
-            None => {
-                let sweep = Sweep::new(setup, axis);
-                let figures = SweepFigures::new(&scenario, &sweep);
-                (sweep, figures)
-            }
+            _ => SweepFigures::new(&scenario, &sweep),
         };
         let survey_inputs = scenario.survey_inputs(evaluation.gsd_m);
         let survey = plan_survey(&survey_inputs);

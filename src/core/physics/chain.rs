@@ -137,11 +137,17 @@ impl SystemMtf {
         if self.wfe_waves > 0.0 {
             v_end = v_end.min(0.5);
         }
-        let a = self.exposure.tilt_removed();
-        if a > 0.0 {
-            v_end = v_end.min((5.0 / (6.0 * a)).powi(3));
+        if let Some(peak) = self.turbulence_peak() {
+            v_end = v_end.min(peak);
         }
         top.min(v_end * cutoff)
+    }
+
+    /// Where the turbulence MTF's exponent c·v^(5/3)·(1 − a·v^(1/3)) peaks, v = (5/(6a))³ of the
+    /// cutoff, past which the MTF rises again; `None` when no tilt is left frozen (a = 0).
+    fn turbulence_peak(&self) -> Option<f64> {
+        let a = self.exposure.tilt_removed();
+        (a > 0.0).then(|| (5.0 / (6.0 * a)).powi(3))
     }
 
     /// A lower bound of |OTF| over [0, `xi_max`]: the falling terms at `xi_max` times the least
@@ -163,9 +169,7 @@ impl SystemMtf {
             * optics::box_mtf(smear)
             * (-2.0 * PI * PI * self.jitter_rad * self.jitter_rad * xi_max * xi_max).exp();
         let wavefront = optics::wavefront_error_factor(v.min(0.5), self.wfe_waves);
-        // The exponent c·v^(5/3)·(1 − a·v^(1/3)) peaks at v = (5/(6a))³.
-        let a = self.exposure.tilt_removed();
-        let v_worst = if a > 0.0 { v.min((5.0 / (6.0 * a)).powi(3)) } else { v };
+        let v_worst = self.turbulence_peak().map_or(v, |peak| v.min(peak));
         let turbulence = self.exposure.mtf(self.wavelength_m, self.aperture_m, v_worst * cutoff);
         falling * wavefront * turbulence
     }

@@ -283,7 +283,7 @@ fn resolved_distance(system: &SystemMtf, snr: f64, ifov: f64, range: f64, sampli
     // so a very noisy image still gets a (coarse) figure, flagged through the NIIRS caveats.
     let xi = system.resolved_frequency((3.0 / snr).min(0.95), 0.5 / ifov, direction);
     let period = if xi > 0.0 { range / xi } else { f64::MAX };
-    finite(period.max(sampling)).min(f64::MAX)
+    finite(period.max(sampling))
 }
 
 /// The edge responses and the GIQE-5 NIIRS of an evaluated setup (resolution-model §5.1).

@@ -71,23 +71,26 @@ impl Sweep {
         sweep
     }
 
-    /// This sweep moved to `base`, when its table would come out the same (`None` otherwise):
-    /// the table depends on everything but the position along the axis, so a change of the height
-    /// (looking at the same angle) or of the ground distance (from the same height) keeps it.
-    pub fn moved_to(&self, base: Setup, axis: Axis) -> Option<Sweep> {
-        if axis != self.axis {
-            return None;
-        }
+    /// Whether a sweep through `base` along `axis` would have this sweep's table: the table
+    /// depends on everything but the position along the axis, so a change of the height (looking
+    /// at the same angle) or of the ground distance (from the same height) keeps it.
+    pub fn keeps_table_for(&self, base: &Setup, axis: Axis) -> bool {
         let same_path = match axis {
             Axis::Height => base.geometry.look_angle_rad().to_bits() == self.look_angle_rad.to_bits(),
             Axis::GroundDistance => base.geometry.height_m.to_bits() == self.base.geometry.height_m.to_bits(),
         };
         let rest_same = Setup {
             geometry: self.base.geometry,
-            ..base
+            ..*base
         } == self.base;
+        axis == self.axis && same_path && rest_same
+    }
+
+    /// This sweep moved to `base`, when its table would come out the same (`None` otherwise; see
+    /// [`Sweep::keeps_table_for`]).
+    pub fn moved_to(&self, base: Setup, axis: Axis) -> Option<Sweep> {
         let look = base.geometry.look_angle_rad();
-        (same_path && rest_same).then(|| Sweep {
+        self.keeps_table_for(&base, axis).then(|| Sweep {
             base,
             look_angle_rad: if look.is_finite() { look } else { 0.0 },
             ..self.clone()
@@ -406,7 +409,7 @@ pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need: &Need) -> Foca
                 forbidden_by: evaluation.governing,
             };
         }
-        match focal_for_detail(setup, d, k) {
+        match focal_for_detail(setup, evaluation.r0_m, d, k) {
             Ok(found) => best = Some(found),
             Err(forbidden_by) => return FocalNeed::Impossible { forbidden_by },
         }
@@ -432,10 +435,9 @@ pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need: &Need) -> Foca
 
 /// The shortest focal length whose GRD on the plane (stretch `k`) is at most `detail_m`, with the
 /// limit that governs there; or the lens-free limit (turbulence or motion) that forbids it.
-fn focal_for_detail(setup: &Setup, detail_m: f64, k: f64) -> Result<(f64, Limit), Limit> {
-    // The lens leaves the air path as it is: its r0 is found once.
-    let r0 = evaluate(setup).r0_m;
-    let at = |focal_m: f64| evaluate_through(&Setup { focal_m, ..*setup }, r0);
+fn focal_for_detail(setup: &Setup, r0_m: Option<f64>, detail_m: f64, k: f64) -> Result<(f64, Limit), Limit> {
+    // The lens leaves the air path as it is: the evaluation's r0 serves every focal length.
+    let at = |focal_m: f64| evaluate_through(&Setup { focal_m, ..*setup }, r0_m);
     let meets = |e: &Evaluation| e.resolved_m * k <= detail_m;
     let (lo, hi) = FOCAL_DOMAIN;
     let ratio = (hi / lo).ln();

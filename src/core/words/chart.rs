@@ -199,7 +199,7 @@ pub fn build_after(sweep: &Sweep, marks: &Marks, units: Units, previous: Option<
     let x_max = x_extent(axis, sweep.current(), reach_m);
     let xs: Vec<f64> = (1..=SAMPLES).map(|i| x_max * i as f64 / SAMPLES as f64).collect();
     let kept = previous.filter(|(old_sweep, old_chart)| {
-        old_chart.x_max_m.to_bits() == x_max.to_bits() && old_sweep.moved_to(sweep.base(), axis).is_some()
+        old_chart.x_max_m.to_bits() == x_max.to_bits() && old_sweep.keeps_table_for(&sweep.base(), axis)
     });
     let evaluations: Vec<Evaluation> = match kept {
         Some((_, old_chart)) => old_chart.samples.clone(),

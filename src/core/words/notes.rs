@@ -100,17 +100,24 @@ pub const NIIRS_SCALE: [(u8, &str); 10] = [
     ),
 ];
 
+/// The level of the scale a NIIRS figure reaches (rounded down, 0 for none), or `None` above 9,
+/// finer than the scale describes.
+pub fn niirs_level(niirs: f64) -> Option<u8> {
+    if niirs > 9.0 {
+        None
+    } else if niirs.is_finite() {
+        Some(niirs.floor().clamp(0.0, 9.0) as u8)
+    } else {
+        Some(0)
+    }
+}
+
 /// What the scale says for a NIIRS figure (the level it reaches, rounded down).
 pub fn niirs_reading(niirs: f64) -> &'static str {
-    if niirs > 9.0 {
-        return "finer than the scale describes: detail of a few centimetres and less";
+    match niirs_level(niirs) {
+        Some(level) => NIIRS_SCALE[usize::from(level)].1,
+        None => "finer than the scale describes: detail of a few centimetres and less",
     }
-    let level = if niirs.is_finite() {
-        niirs.floor().clamp(0.0, 9.0) as usize
-    } else {
-        0
-    };
-    NIIRS_SCALE[level].1
 }
 
 /// Why a NIIRS figure is only indicative, in one sentence; `None` inside GIQE 5.0's range.
