@@ -49,7 +49,12 @@ thread_local! {
     static WORKER: RefCell<Option<web_sys::Worker>> = const { RefCell::new(None) };
     /// Whether it has said it listens.
     static LISTENING: std::cell::Cell<bool> = const { std::cell::Cell::new(false) };
+    /// The handlers of the request in flight; the next request's replace (and drop) them.
+    static HANDLERS: RefCell<Option<(MessageHandler, ErrorHandler)>> = const { RefCell::new(None) };
 }
+
+type MessageHandler = Closure<dyn Fn(web_sys::MessageEvent)>;
+type ErrorHandler = Closure<dyn Fn(web_sys::Event)>;
 
 /// In the page: asks the worker for the GeoJSON of `query` and calls `done` with it, or with why
 /// it cannot be made (also when the worker cannot be started or fails).
@@ -95,9 +100,8 @@ pub fn geojson(query: &str, done: impl FnOnce(Result<String, String>) + 'static)
     let on_error = Closure::<dyn Fn(web_sys::Event)>::new(move |_| finish(Err(FAILED.to_string())));
     worker.set_onmessage(Some(on_answer.as_ref().unchecked_ref()));
     worker.set_onerror(Some(on_error.as_ref().unchecked_ref()));
-    // One request at a time: each sets its own handlers, which live as long as the page.
-    on_answer.forget();
-    on_error.forget();
+    // One request at a time: each sets its own handlers, kept until the next replaces them.
+    HANDLERS.with(|h| *h.borrow_mut() = Some((on_answer, on_error)));
     if LISTENING.with(|l| l.get()) {
         let _ = worker.post_message(&JsValue::from_str(&query));
     }

@@ -134,11 +134,7 @@ fn combined_card(state: &State) -> Html {
 /// edge figures it rests on, and a short scale.
 fn quality_block(state: &State) -> Html {
     let report = &state.plan.report;
-    let level = if report.niirs > 9.0 {
-        10
-    } else {
-        report.niirs.floor().clamp(0.0, 9.0) as u8
-    };
+    let level = notes::niirs_level(report.niirs);
     html! {
         <div class="quality" aria-labelledby="quality-title">
             <h3 id="quality-title">{ "Predicted image quality" }</h3>
@@ -158,7 +154,7 @@ fn quality_block(state: &State) -> Html {
             </p>
             <ol class="niirs-scale" reversed=true aria-label="What each NIIRS level shows">
                 { for notes::NIIRS_SCALE.iter().rev().map(|&(n, words)| html! {
-                    <li value={n.to_string()} class={classes!((n == level).then_some("here"))}><b>{ n }</b>{ format!(" {words}") }</li>
+                    <li value={n.to_string()} class={classes!((Some(n) == level).then_some("here"))}><b>{ n }</b>{ format!(" {words}") }</li>
                 }) }
             </ol>
         </div>

@@ -1,6 +1,7 @@
 //! The survey panel: footprint, overlaps, lines, photos, speed limits, flight time, the layout
 //! diagram and the GeoJSON export.
 
+use crate::core::contract::scenario::Scenario;
 use crate::core::planning::survey::Layout;
 use crate::core::words::format;
 use crate::ui::browser;
@@ -99,18 +100,16 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
     let len = |v: f64| format::length(v, units);
     let spd = |v: f64| format::speed(v, units);
     let ready = plan.export_ready;
-    // What the last export said, for the query it was asked for (a problem only the export finds).
-    let answer = use_state(|| None::<(String, String)>);
+    // What the last export said, for the scenario it was asked for (a problem only the export finds).
+    let answer = use_state(|| None::<(Scenario, String)>);
     let words = &plan.report.survey_words;
-    let query = scenario.to_query();
     let on_export = {
-        let (answer, query) = (answer.clone(), query.clone());
-        let name = scenario.name.clone();
+        let (answer, scenario) = (answer.clone(), scenario.clone());
         Callback::from(move |_| {
-            let (answer, asked) = (answer.clone(), query.clone());
-            let name = name.clone();
+            let (answer, asked) = (answer.clone(), scenario.clone());
+            let name = scenario.name.clone();
             // Built by the on-demand module, which loads the first time this is pressed.
-            export::geojson(&query, move |result| match result {
+            export::geojson(&scenario.to_query(), move |result| match result {
                 Ok(json) => {
                     browser::download(&browser::file_name(&name, "geojson"), "application/geo+json", &json);
                     answer.set(None);
@@ -121,7 +120,7 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
     };
     let problem = match (&ready, &*answer) {
         (Err(problem), _) => Some(problem.message().to_string()),
-        (Ok(()), Some((asked, problem))) if *asked == query => Some(problem.clone()),
+        (Ok(()), Some((asked, problem))) if asked == scenario => Some(problem.clone()),
         _ => None,
     };
     html! {
