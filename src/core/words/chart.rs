@@ -70,6 +70,9 @@ pub struct Chart {
     pub x_max_m: f64,
     /// The evaluations the curves are drawn from, one per sample, kept for the next chart.
     samples: Vec<Evaluation>,
+    /// The top of the y axis, in metres: with the same samples and the same top, the curves are
+    /// the same and the next chart reuses their paths.
+    y_max_m: f64,
 }
 
 /// A "nice" step (1, 2 or 5 × 10ⁿ) that splits `span` into about `count` parts.
@@ -223,27 +226,43 @@ pub fn build_after(sweep: &Sweep, marks: &Marks, units: Units, previous: Option<
     let path = |values: &mut dyn Iterator<Item = f64>| -> String {
         let mut d = String::with_capacity(SAMPLES * 14);
         for (i, (x, y)) in xs.iter().zip(values).enumerate() {
-            let command = if i == 0 { 'M' } else { 'L' };
-            d.push_str(&format!("{command}{:.1} {:.1}", to_x(*x), to_y(y)));
+            d.push(if i == 0 { 'M' } else { 'L' });
+            push_tenths(&mut d, to_x(*x));
+            d.push(' ');
+            push_tenths(&mut d, to_y(y));
         }
         d
     };
 
-    let series = Limit::ALL
-        .iter()
-        .filter(|&&limit| evaluations.iter().any(|e| e.limits.get(limit) > 0.0))
-        .map(|&limit| {
-            let last = evaluations.last().map(|e| e.limits.get(limit)).unwrap_or(0.0);
-            Series {
-                limit,
-                path: path(&mut evaluations.iter().map(|e| e.limits.get(limit))),
-                label_x: plot_right - 4.0,
-                label_y: to_y(last) - 4.0,
-            }
-        })
-        .collect();
-    let envelope = path(&mut evaluations.iter().map(|e| e.limit_m));
-    let grd = path(&mut evaluations.iter().map(|e| e.resolved_m));
+    // The same samples on the same axes draw the same curves: keep their paths (a keystroke
+    // along the axis moves only the marks).
+    let same_curves = kept
+        .map(|(_, old_chart)| old_chart)
+        .filter(|old_chart| old_chart.y_max_m.to_bits() == y_max.to_bits());
+    let (series, envelope, grd) = match same_curves {
+        Some(old_chart) => (
+            old_chart.series.clone(),
+            old_chart.envelope.clone(),
+            old_chart.grd.clone(),
+        ),
+        None => (
+            Limit::ALL
+                .iter()
+                .filter(|&&limit| evaluations.iter().any(|e| e.limits.get(limit) > 0.0))
+                .map(|&limit| {
+                    let last = evaluations.last().map(|e| e.limits.get(limit)).unwrap_or(0.0);
+                    Series {
+                        limit,
+                        path: path(&mut evaluations.iter().map(|e| e.limits.get(limit))),
+                        label_x: plot_right - 4.0,
+                        label_y: to_y(last) - 4.0,
+                    }
+                })
+                .collect(),
+            path(&mut evaluations.iter().map(|e| e.limit_m)),
+            path(&mut evaluations.iter().map(|e| e.resolved_m)),
+        ),
+    };
 
     let (x_unit, x_per) = axis_unit(x_max, units);
     let x_ticks = ticks(x_max, nice_step(x_max / x_per, 5.0) * x_per, x_per, to_x);
@@ -284,7 +303,42 @@ pub fn build_after(sweep: &Sweep, marks: &Marks, units: Units, previous: Option<
         y_markers,
         x_max_m: x_max,
         samples: evaluations,
+        y_max_m: y_max,
     }
+}
+
+/// Appends `v` with one decimal (view-box units are finite and small): the chart's paths hold
+/// hundreds of numbers, and this is several times quicker than `format!("{:.1}")`. Halves round
+/// away from zero.
+fn push_tenths(d: &mut String, v: f64) {
+    let tenths = (v * 10.0).round();
+    let tenths = if tenths.is_finite() {
+        tenths.clamp(-1e12, 1e12) as i64
+    } else {
+        0
+    };
+    if tenths < 0 {
+        d.push('-');
+    }
+    let magnitude = tenths.unsigned_abs();
+    let whole = magnitude / 10;
+    // Digits of the whole part, most significant first.
+    let mut digits = [0u8; 20];
+    let mut n = whole;
+    let mut len = 0;
+    loop {
+        digits[len] = b'0' + (n % 10) as u8;
+        len += 1;
+        n /= 10;
+        if n == 0 {
+            break;
+        }
+    }
+    for &digit in digits[..len].iter().rev() {
+        d.push(char::from(digit));
+    }
+    d.push('.');
+    d.push(char::from(b'0' + (magnitude % 10) as u8));
 }
 
 fn capitalise(text: &str) -> String {
@@ -292,5 +346,48 @@ fn capitalise(text: &str) -> String {
     match chars.next() {
         Some(c) => std::iter::once(c.to_ascii_uppercase()).chain(chars).collect(),
         None => String::new(),
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::push_tenths;
+
+    /// The quick path numbers read as the standard library's `{:.1}` does, away from exact halves
+    /// (where `{:.1}` rounds to even on the binary value and this rounds away from zero).
+    #[test]
+    fn tenths_match_the_standard_formatting() {
+        let mut values = vec![
+            0.0,
+            0.04,
+            0.06,
+            1.0,
+            9.96,
+            10.0,
+            63.99,
+            624.0,
+            359.94,
+            -0.3,
+            -12.34,
+            1e9 + 0.2,
+        ];
+        values.extend((0..20_000).map(|i| f64::from(i) * 0.0317 - 3.0));
+        for v in values {
+            if ((v * 10.0).fract().abs() - 0.5).abs() < 1e-6 {
+                continue;
+            }
+            let mut quick = String::new();
+            push_tenths(&mut quick, v);
+            let standard = format!("{v:.1}");
+            let standard = if standard == "-0.0" {
+                "0.0".to_string()
+            } else {
+                standard
+            };
+            assert_eq!(quick, standard, "{v}");
+        }
+        let mut odd = String::new();
+        push_tenths(&mut odd, f64::NAN);
+        assert_eq!(odd, "0.0");
     }
 }

@@ -2,6 +2,7 @@
 
 use crate::core::contract::inputs::input;
 use crate::core::words::units::{entry_matches, entry_range, from_entry_text, to_entry_text, EntryUnit};
+use crate::ui::state::Action;
 use web_sys::{HtmlInputElement, HtmlSelectElement};
 use yew::prelude::*;
 
@@ -18,8 +19,10 @@ pub struct FieldProps {
     /// A short note under the field (e.g. the value in other units).
     #[prop_or_default]
     pub hint: Option<AttrValue>,
-    /// Called with (key, contract text) on every keystroke.
-    pub on_input: Callback<(String, String)>,
+    /// Receives `Action::Set` of (key, contract text) on every keystroke. The app's one dispatch
+    /// callback, which never changes, so a field whose text, error and hint stay the same is not
+    /// drawn again when another field is typed in.
+    pub dispatch: Callback<Action>,
     /// The unit the field is typed in when it is not the contract's (imperial display).
     #[prop_or_default]
     pub entry: Option<EntryUnit>,
@@ -63,7 +66,7 @@ pub fn number_field(props: &FieldProps) -> Html {
     };
 
     let oninput = {
-        let on_input = props.on_input.clone();
+        let dispatch = props.dispatch.clone();
         let key = key.clone();
         let local = local.clone();
         Callback::from(move |e: InputEvent| {
@@ -74,7 +77,7 @@ pub fn number_field(props: &FieldProps) -> Html {
                 None => text.clone(),
             };
             local.set(text);
-            on_input.emit((key.clone(), contract));
+            dispatch.emit(Action::Set(vec![(key.clone(), contract)]));
         })
     };
     let invalid = props.error.is_some();

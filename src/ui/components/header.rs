@@ -1,6 +1,7 @@
 //! The page's header: the name of the app and its tools (demos, units, contrast).
 
 use super::field::Choice;
+use super::inputs::use_action;
 use super::theme::ThemeToggle;
 use crate::core::presets::demo;
 use crate::core::words::units::Units;
@@ -27,15 +28,12 @@ pub fn header(props: &HeaderProps) -> Html {
                 .map(|(i, d)| (i.to_string().into(), d.name.clone().into())),
         )
         .collect();
-    let on_demo = {
-        let dispatch = props.dispatch.clone();
-        Callback::from(move |index: String| {
-            if let Some(d) = index.parse::<usize>().ok().and_then(|i| demo::all().into_iter().nth(i)) {
-                dispatch.emit(Action::Load(d.to_raw()));
-            }
-        })
-    };
-    let on_units = props.dispatch.reform(|units: String| Action::set("units", units));
+    let on_demo = use_callback(props.dispatch.clone(), |index: String, dispatch| {
+        if let Some(d) = index.parse::<usize>().ok().and_then(|i| demo::all().into_iter().nth(i)) {
+            dispatch.emit(Action::Load(d.to_raw()));
+        }
+    });
+    let on_units = use_action(&props.dispatch, |units: String| Action::set("units", units));
     html! {
         <header class="top">
             <div class="brand">

@@ -21,15 +21,22 @@ pub struct InputsProps {
 
 /// A numeric field for `key`, with an optional hint.
 fn field(props: &InputsProps, key: &'static str, hint: Option<String>) -> Html {
-    let on_input = props
-        .dispatch
-        .reform(|(k, v): (String, String)| Action::Set(vec![(k, v)]));
     let entry = entry_unit(key, props.state.plan.scenario.units);
     html! {
         <NumberField key_name={key} value={props.state.text(key)}
             error={props.state.error(key).map(AttrValue::from)}
-            hint={hint.map(AttrValue::from)} {on_input} {entry} />
+            hint={hint.map(AttrValue::from)} dispatch={props.dispatch.clone()} {entry} />
     }
+}
+
+/// A callback that dispatches `to_action(value)`: the same callback on every render while the
+/// app's dispatch stays the same, so the select it is given is drawn again only when its options
+/// or its choice change. `to_action` is fixed at each call site (hooks are called in order).
+#[hook]
+pub fn use_action<T: 'static>(dispatch: &Callback<Action>, to_action: fn(T) -> Action) -> Callback<T> {
+    use_callback(dispatch.clone(), move |value: T, dispatch| {
+        dispatch.emit(to_action(value))
+    })
 }
 
 /// `x` rounded to `decimals` decimal places (a position to 6 places is about 0.1 m).
@@ -84,9 +91,8 @@ pub fn camera_group(props: &InputsProps) -> Html {
         })
         .map(|f| f.id)
         .unwrap_or("custom");
-    let on_change = props
-        .dispatch
-        .reform(|id: String| match SENSOR_FORMATS.iter().find(|f| f.id == id) {
+    let on_change = use_action(&props.dispatch, |id: String| {
+        match SENSOR_FORMATS.iter().find(|f| f.id == id) {
             Some(f) => Action::Set(vec![
                 ("sw".into(), format_number(f.width_mm)),
                 ("sh".into(), format_number(f.height_mm)),
@@ -94,7 +100,8 @@ pub fn camera_group(props: &InputsProps) -> Html {
                 ("rows".into(), f.rows.to_string()),
             ]),
             None => Action::Set(Vec::new()),
-        });
+        }
+    });
     let mut items: Vec<(String, String)> = SENSOR_FORMATS
         .iter()
         .map(|f| (f.id.to_string(), f.label.to_string()))
@@ -136,12 +143,10 @@ pub fn band_group(props: &InputsProps) -> Html {
         .find(|b| reads_as(state, "wl", b.wavelength_nm))
         .map(|b| b.id)
         .unwrap_or("custom");
-    let on_change = props
-        .dispatch
-        .reform(|id: String| match BANDS.iter().find(|b| b.id == id) {
-            Some(b) => Action::set("wl", format_number(b.wavelength_nm)),
-            None => Action::Set(Vec::new()),
-        });
+    let on_change = use_action(&props.dispatch, |id: String| match BANDS.iter().find(|b| b.id == id) {
+        Some(b) => Action::set("wl", format_number(b.wavelength_nm)),
+        None => Action::Set(Vec::new()),
+    });
     let mut items: Vec<(String, String)> = BANDS.iter().map(|b| (b.id.to_string(), b.label.to_string())).collect();
     items.push(("custom".into(), "Other wavelength".into()));
     html! {
@@ -165,7 +170,7 @@ pub fn geometry_group(props: &InputsProps) -> Html {
     } else {
         "down"
     };
-    let on_change = props.dispatch.reform(|mode: String| match mode.as_str() {
+    let on_change = use_action(&props.dispatch, |mode: String| match mode.as_str() {
         "tilt" => Action::SetAndRemove(vec![("tilt".into(), "30".into())], vec!["gd".into()]),
         "gd" => Action::SetAndRemove(vec![("gd".into(), "500".into())], vec!["tilt".into()]),
         _ => Action::SetAndRemove(vec![("gd".into(), "0".into())], vec!["tilt".into()]),
@@ -237,7 +242,7 @@ pub fn air_group(props: &InputsProps) -> Html {
         })
         .map(|p| p.0)
         .unwrap_or(if air == "power" { "measured" } else { "none" });
-    let on_change = props.dispatch.reform(|id: String| {
+    let on_change = use_action(&props.dispatch, |id: String| {
         let Some((_, _, air, cn2, cexp)) = AIR_PRESETS.iter().find(|p| p.0 == id) else {
             return Action::Set(Vec::new());
         };
@@ -303,12 +308,12 @@ pub fn need_group(props: &InputsProps) -> Html {
         .find(|(_, _, v)| reads_as(state, "tdim", v.parse().unwrap_or(0.0)))
         .map(|p| p.0)
         .unwrap_or("custom");
-    let on_change = props
-        .dispatch
-        .reform(|id: String| match TARGET_PRESETS.iter().find(|p| p.0 == id) {
+    let on_change = use_action(&props.dispatch, |id: String| {
+        match TARGET_PRESETS.iter().find(|p| p.0 == id) {
             Some((_, _, v)) => Action::set("tdim", *v),
             None => Action::Set(Vec::new()),
-        });
+        }
+    });
     let mut items: Vec<(String, String)> = TARGET_PRESETS
         .iter()
         .map(|p| (p.0.to_string(), p.1.to_string()))
@@ -319,7 +324,7 @@ pub fn need_group(props: &InputsProps) -> Html {
         ("1d", "Smaller dimension, Johnson 1-D"),
     ]
     .map(|(v, l)| (v.to_string(), l.to_string()));
-    let on_model = props.dispatch.reform(|word: String| Action::set("cdm", word));
+    let on_model = use_action(&props.dispatch, |word: String| Action::set("cdm", word));
     let plane = match state.text("tplane").trim() {
         "ground" => "ground",
         "upright" => "upright",
@@ -331,7 +336,7 @@ pub fn need_group(props: &InputsProps) -> Html {
         ("upright", "Upright, facing the camera (people, vehicles, posts)"),
     ]
     .map(|(v, l)| (v.to_string(), l.to_string()));
-    let on_plane = props.dispatch.reform(|word: String| match word.as_str() {
+    let on_plane = use_action(&props.dispatch, |word: String| match word.as_str() {
         "ground" | "upright" => Action::set("tplane", word),
         _ => Action::Remove("tplane".into()),
     });
