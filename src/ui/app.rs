@@ -2,7 +2,7 @@
 
 use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::RawScenario;
-use crate::core::formats::qr::qr_svg;
+use crate::core::formats::qr::{qr_svg, QrSvg};
 use crate::core::presets::demo;
 use crate::core::words::chart;
 use crate::core::words::format;
@@ -27,16 +27,42 @@ fn initial_raw() -> RawScenario {
     browser::scenario_from_location().unwrap_or_else(|| demo::pasture_survey().to_raw())
 }
 
-/// How long typing must pause before the QR code is drawn again (ms).
-const QR_PAUSE_MS: u32 = 250;
+/// How long typing must pause before the QR code and the printed sheet follow the scenario (ms).
+const SETTLE_MS: u32 = 250;
+
+/// What is drawn once typing pauses rather than on every keystroke: the QR code (the costliest
+/// drawing of a keystroke) and the printed sheet (hidden on screen), for one scenario.
+#[derive(Clone, PartialEq)]
+struct Settled {
+    state: Rc<State>,
+    chart: Rc<chart::Chart>,
+    link: AttrValue,
+    qr: Rc<Option<QrSvg>>,
+}
+
+impl Settled {
+    fn of(state: &Rc<State>, chart: &Rc<chart::Chart>, link: &AttrValue) -> Settled {
+        Settled {
+            state: state.clone(),
+            chart: chart.clone(),
+            link: link.clone(),
+            qr: Rc::new(qr_svg(link)),
+        }
+    }
+}
 
 /// The app.
 #[function_component(App)]
 pub fn app() -> Html {
     let state = use_reducer(|| State::new(initial_raw()));
+    // One dispatch callback for the page's life, so that components whose other props are
+    // unchanged are not drawn again on a keystroke.
     let dispatch = {
-        let state = state.clone();
-        Callback::from(move |action: Action| state.dispatch(action))
+        let dispatcher = state.dispatcher();
+        (*use_memo((), move |_| {
+            Callback::from(move |action: Action| dispatcher.dispatch(action))
+        }))
+        .clone()
     };
 
     // The address always holds the current scenario, replaced in place while editing.
@@ -76,37 +102,49 @@ pub fn app() -> Html {
             built
         })
     };
-    // The link to this scenario and its QR code, shown on screen and printed. The code is the
-    // costliest drawing of a keystroke, so it follows the link once typing pauses: at once for the
-    // first link, then QR_PAUSE_MS after the last change (and at once before printing).
-    let link = browser::link_to(&state.raw);
-    let qr_state = use_state(|| (link.clone(), Rc::new(qr_svg(&link))));
+    let chart: Rc<chart::Chart> = (*chart).clone();
+    // The link to this scenario. Its QR code and the printed sheet follow it once typing pauses:
+    // at once for the first link, then SETTLE_MS after the last change, and at once before printing
+    // (the print button, or the browser's own print command through `beforeprint`).
+    let link: AttrValue = browser::link_to(&state.raw).into();
+    let settled = use_state_eq(|| Settled::of(&snapshot, &chart, &link));
+    let latest: Latest = use_mut_ref(|| None);
+    *latest.borrow_mut() = Some((snapshot.clone(), chart.clone(), link.clone()));
     {
-        let qr_state = qr_state.clone();
+        let settled = settled.clone();
+        let latest = latest.clone();
         use_effect_with(link.clone(), move |link| {
-            let timer = (qr_state.0 != *link).then(|| {
-                let (qr_state, link) = (qr_state.clone(), link.clone());
-                gloo::timers::callback::Timeout::new(QR_PAUSE_MS, move || {
-                    let code = Rc::new(qr_svg(&link));
-                    qr_state.set((link, code));
-                })
+            let timer = (settled.link != *link).then(|| {
+                let settled = settled.clone();
+                gloo::timers::callback::Timeout::new(SETTLE_MS, move || settle(&settled, &latest))
             });
             move || drop(timer)
         });
     }
+    {
+        let settled = settled.clone();
+        let latest = latest.clone();
+        use_effect_with((), move |_| {
+            let listener = web_sys::window().map(|window| {
+                gloo::events::EventListener::new(&window, "beforeprint", move |_| settle(&settled, &latest))
+            });
+            move || drop(listener)
+        });
+    }
     let on_print = {
-        let (qr_state, link) = (qr_state.clone(), link.clone());
+        let settled = settled.clone();
+        let link = link.clone();
         Callback::from(move |_: ()| {
-            if qr_state.0 == link {
+            if settled.link == link {
                 browser::print();
             } else {
-                // Draw the current link's code first; print once the page shows it.
-                qr_state.set((link.clone(), Rc::new(qr_svg(&link))));
+                // Draw the current sheet and code first; print once the page shows them.
+                settle(&settled, &latest);
                 gloo::timers::callback::Timeout::new(50, browser::print).forget();
             }
         })
     };
-    let qr = qr_state.1.clone();
+    let qr = settled.qr.clone();
 
     let report = &snapshot.plan.report;
     let units = snapshot.plan.scenario.units;
@@ -127,17 +165,28 @@ pub fn app() -> Html {
                 }
                 <Results state={snapshot.clone()} />
                 <Cautions state={snapshot.clone()} />
-                <LimitsChart state={snapshot.clone()} chart={(*chart).clone()} />
+                <LimitsChart state={snapshot.clone()} chart={chart.clone()} />
                 <SolvePanel state={snapshot.clone()} />
                 <TargetPanel state={snapshot.clone()} />
                 <SurveyPanel state={snapshot.clone()} />
                 <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} {on_print} link={link.clone()} qr={qr.clone()} />
             </div>
         </main>
-        <PrintSheet state={snapshot.clone()} chart={(*chart).clone()} qr={qr.clone()} />
+        <PrintSheet state={settled.state.clone()} chart={settled.chart.clone()} qr={qr.clone()} />
         <footer class="foot">
             <p>{ "Sharpfield estimates; it does not replace a test flight, local rules or licensed practice. Sources and limits: see the README." }</p>
         </footer>
         </>
+    }
+}
+
+/// The scenario, chart and link last drawn on the page, for the QR code and the sheet to follow.
+type Latest = Rc<std::cell::RefCell<Option<(Rc<State>, Rc<chart::Chart>, AttrValue)>>>;
+
+/// Brings the QR code and the printed sheet up to the latest scenario (no new drawing when they
+/// already show it: the state is compared with `use_state_eq`).
+fn settle(settled: &UseStateHandle<Settled>, latest: &Latest) {
+    if let Some((state, chart, link)) = latest.borrow().as_ref() {
+        settled.set(Settled::of(state, chart, link));
     }
 }
