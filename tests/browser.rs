@@ -12,6 +12,7 @@ use serde_json::Value;
 use sharpfield::core::contract::plan::Plan;
 use sharpfield::core::contract::report::{report_for_query, Report};
 use sharpfield::core::contract::scenario::RawScenario;
+use sharpfield::core::formats::library::{Library, ReadOutcome, FORMAT_VERSION};
 use sharpfield::core::presets::demo;
 use sharpfield::ui::app::App;
 use std::time::Duration;
@@ -280,4 +281,56 @@ async fn choosing_a_sensor_format_fills_the_camera_fields() {
         raw.set(key, value);
     }
     assert_shows(&app, &report_of(&raw));
+}
+
+/// Saved-scenario text read as the page reads it: the browser's own `JSON.parse`, seen through
+/// the core's `JsonView` (the page carries no JSON parser of its own).
+fn read_with_the_browser(text: &str) -> ReadOutcome {
+    Library::read_with(text, |text| {
+        js_sys::JSON::parse(text).map_err(|_| "not JSON".to_string())
+    })
+}
+
+#[wasm_bindgen_test]
+fn the_browser_parser_reads_saved_scenarios_as_serde_json_does() {
+    let mut library = Library::default();
+    for s in demo::all() {
+        library.insert(&s.name, &s.to_query(), "2026-12-01T10:00:00.000Z");
+    }
+    let written = library.to_json();
+    let newer = format!(
+        r#"{{"format":"sharpfield-scenarios","version":{},"scenarios":[]}}"#,
+        FORMAT_VERSION + 1
+    );
+    for text in [
+        written.as_str(),
+        "",
+        "  \n",
+        r#"[{"name":"Old plan","query":"v=1&h=50"},{"nonsense":true},42,{"query":"h=5"},{"name":7,"query":"h=6","saved":"x"}]"#,
+        r#"{"format":"sharpfield-scenarios","version":1,"scenarios":[{"id":"s9","name":"Good","query":"v=1&h=80","saved":"2026-01-01"},{"name":"No query"},null,"text"]}"#,
+        r#"{"version":1}"#,
+        r#"{"scenarios":{"name":"not a list"}}"#,
+        "42",
+        r#""a string""#,
+        newer.as_str(),
+    ] {
+        let serde = Library::read(text);
+        let browser = read_with_the_browser(text);
+        assert_eq!(browser, serde, "{text}");
+    }
+    // The lenient reading of the version: a whole number past this version is newer, whatever
+    // its size, and nothing else is.
+    assert!(read_with_the_browser(r#"{"version":1e300,"scenarios":[]}"#).newer_version);
+    assert!(!read_with_the_browser(r#"{"version":-3,"scenarios":[]}"#).newer_version);
+    assert!(!read_with_the_browser(r#"{"version":"9","scenarios":[]}"#).newer_version);
+    // Text that is no JSON: kept aside whole, and the person is told.
+    for corrupt in [
+        "not json at all [",
+        r#"{"format":"sharpfield-scenarios","version":1,"scenarios":["#,
+    ] {
+        let outcome = read_with_the_browser(corrupt);
+        assert!(outcome.library.scenarios.is_empty());
+        assert_eq!(outcome.kept_aside, vec![corrupt.to_string()]);
+        assert_eq!(outcome.messages.len(), 1, "{corrupt}");
+    }
 }

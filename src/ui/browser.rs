@@ -1,6 +1,8 @@
 //! Browser services: the address bar. Every call tolerates a browser that refuses it.
 
 use crate::core::contract::scenario::RawScenario;
+use crate::core::formats::library::{JsonView, Library, ReadOutcome};
+use wasm_bindgen::JsCast;
 
 /// The scenario in the page's address, if it carries one.
 pub fn scenario_from_location() -> Option<RawScenario> {
@@ -96,7 +98,6 @@ pub fn file_name(name: &str, extension: &str) -> String {
 
 /// Offers `contents` as a file download made in the page (a blob URL): nothing leaves the device.
 pub fn download(file_name: &str, mime: &str, contents: &str) {
-    use wasm_bindgen::JsCast;
     let parts = js_sys::Array::of1(&wasm_bindgen::JsValue::from_str(contents));
     let options = web_sys::BlobPropertyBag::new();
     options.set_type(mime);
@@ -194,7 +195,6 @@ pub fn location_href() -> String {
 /// Calls `navigator[object][method](arg)` or `navigator[method](arg)` when the browser has it;
 /// false when it does not. Looked up at run time so older browsers simply lack the button.
 fn call_navigator(object: Option<&str>, method: &str, arg: &wasm_bindgen::JsValue) -> bool {
-    use wasm_bindgen::JsCast;
     let Some(navigator) = web_sys::window().map(|w| w.navigator()) else {
         return false;
     };
@@ -265,7 +265,6 @@ pub fn set_theme(theme: &str) {
 /// The position stays in the page: it only fills the survey origin.
 pub fn current_position(done: impl Fn(Result<(f64, f64), String>) + 'static) -> bool {
     use wasm_bindgen::closure::Closure;
-    use wasm_bindgen::JsCast;
     let Some(navigator) = web_sys::window().map(|w| w.navigator()) else {
         return false;
     };
@@ -309,4 +308,55 @@ pub fn current_position(done: impl Fn(Result<(f64, f64), String>) + 'static) -> 
         }
     });
     method.call2(&geolocation, &on_success, &on_error).is_ok()
+}
+
+/// Reads stored or imported saved-scenario text with the browser's own JSON parser, so that the
+/// page carries no JSON parser of its own; the reading itself is the core's (`Library::read_with`).
+pub fn read_library(text: &str) -> ReadOutcome {
+    Library::read_with(text, |text| {
+        js_sys::JSON::parse(text).map_err(|error| {
+            error
+                .dyn_ref::<js_sys::Error>()
+                .map(|e| String::from(e.message()))
+                .unwrap_or_else(|| "not JSON".to_string())
+        })
+    })
+}
+
+/// A value from `JSON.parse`, seen the way the core reads saved scenarios.
+impl JsonView for wasm_bindgen::JsValue {
+    fn items(&self) -> Option<Vec<wasm_bindgen::JsValue>> {
+        js_sys::Array::is_array(self).then(|| self.unchecked_ref::<js_sys::Array>().to_vec())
+    }
+
+    fn is_object(&self) -> bool {
+        wasm_bindgen::JsValue::is_object(self) && !js_sys::Array::is_array(self)
+    }
+
+    fn member(&self, key: &str) -> Option<wasm_bindgen::JsValue> {
+        if !JsonView::is_object(self) {
+            return None;
+        }
+        js_sys::Reflect::get(self, &key.into())
+            .ok()
+            .filter(|v| !v.is_undefined())
+    }
+
+    fn as_str(&self) -> Option<String> {
+        self.as_string()
+    }
+
+    fn as_u64(&self) -> Option<u64> {
+        // Saturating: a whole number past u64 is still a version newer than this one.
+        self.as_f64()
+            .filter(|n| *n >= 0.0 && n.fract() == 0.0)
+            .map(|n| n as u64)
+    }
+
+    fn to_json_text(&self) -> String {
+        js_sys::JSON::stringify(self)
+            .ok()
+            .and_then(|s| s.as_string())
+            .unwrap_or_default()
+    }
 }

@@ -69,8 +69,17 @@ impl Library {
         .unwrap_or_else(|_| format!("{{\"format\":\"{FORMAT_NAME}\",\"version\":{FORMAT_VERSION},\"scenarios\":[]}}"))
     }
 
-    /// Reads stored or imported text; never fails (see [`ReadOutcome`]).
+    /// Reads stored or imported text; never fails (see [`ReadOutcome`]). The text is parsed by
+    /// serde_json; the page passes the browser's own parser to [`Library::read_with`] instead.
     pub fn read(text: &str) -> ReadOutcome {
+        Library::read_with(text, |text| {
+            serde_json::from_str::<Value>(text).map_err(|e| e.to_string())
+        })
+    }
+
+    /// Reads stored or imported text parsed by `parse` (into JSON values, or the parser's
+    /// complaint in words); never fails (see [`ReadOutcome`]). `parse` is not called on blank text.
+    pub fn read_with<J: JsonView>(text: &str, parse: impl FnOnce(&str) -> Result<J, String>) -> ReadOutcome {
         let mut out = ReadOutcome {
             library: Library::default(),
             kept_aside: Vec::new(),
@@ -80,7 +89,7 @@ impl Library {
         if text.trim().is_empty() {
             return out;
         }
-        let value: Value = match serde_json::from_str(text) {
+        let value = match parse(text) {
             Ok(v) => v,
             Err(e) => {
                 out.kept_aside.push(text.to_string());
@@ -90,42 +99,39 @@ impl Library {
                 return out;
             }
         };
-        let entries = match &value {
-            Value::Array(items) => items.clone(),
-            Value::Object(map) => {
-                let version = map.get("version").and_then(Value::as_u64).unwrap_or(0);
-                if version > FORMAT_VERSION {
-                    out.newer_version = true;
-                    out.kept_aside.push(text.to_string());
-                    out.messages.push(format!(
-                        "These saved scenarios come from a newer version of Sharpfield (format {version}); they were kept aside unchanged. Update the app to open them."
-                    ));
-                    return out;
-                }
-                match map.get("scenarios") {
-                    Some(Value::Array(items)) => items.clone(),
-                    _ => {
-                        out.kept_aside.push(text.to_string());
-                        out.messages.push(
-                            "The saved scenarios have no list of scenarios; the text was kept aside.".to_string(),
-                        );
-                        return out;
-                    }
-                }
-            }
-            _ => {
+        let entries = if let Some(items) = value.items() {
+            items
+        } else if value.is_object() {
+            let version = value.member("version").and_then(|v| v.as_u64()).unwrap_or(0);
+            if version > FORMAT_VERSION {
+                out.newer_version = true;
                 out.kept_aside.push(text.to_string());
-                out.messages
-                    .push("The saved scenarios are not in a known shape; the text was kept aside.".to_string());
+                out.messages.push(format!(
+                    "These saved scenarios come from a newer version of Sharpfield (format {version}); they were kept aside unchanged. Update the app to open them."
+                ));
                 return out;
             }
+            match value.member("scenarios").and_then(|list| list.items()) {
+                Some(items) => items,
+                None => {
+                    out.kept_aside.push(text.to_string());
+                    out.messages
+                        .push("The saved scenarios have no list of scenarios; the text was kept aside.".to_string());
+                    return out;
+                }
+            }
+        } else {
+            out.kept_aside.push(text.to_string());
+            out.messages
+                .push("The saved scenarios are not in a known shape; the text was kept aside.".to_string());
+            return out;
         };
         for entry in entries {
             match read_entry(&entry) {
                 Some((name, query, saved)) => {
                     out.library.insert(&name, &query, &saved);
                 }
-                None => out.kept_aside.push(entry.to_string()),
+                None => out.kept_aside.push(entry.to_json_text()),
             }
         }
         let unreadable = out.kept_aside.len();
@@ -218,10 +224,60 @@ impl Library {
 }
 
 /// Reads one entry leniently: a name and a query are needed; an id is not kept (ids are local).
-fn read_entry(entry: &Value) -> Option<(String, String, String)> {
-    let map = entry.as_object()?;
-    let query = map.get("query")?.as_str()?.to_string();
-    let name = map.get("name").and_then(Value::as_str).unwrap_or("Untitled scenario");
-    let saved = map.get("saved").and_then(Value::as_str).unwrap_or("");
-    Some((clip(name, NAME_MAX), query, saved.to_string()))
+fn read_entry<J: JsonView>(entry: &J) -> Option<(String, String, String)> {
+    if !entry.is_object() {
+        return None;
+    }
+    let query = entry.member("query")?.as_str()?;
+    let name = entry.member("name").and_then(|v| v.as_str());
+    let saved = entry.member("saved").and_then(|v| v.as_str()).unwrap_or_default();
+    Some((
+        clip(name.as_deref().unwrap_or("Untitled scenario"), NAME_MAX),
+        query,
+        saved,
+    ))
+}
+
+/// A parsed JSON value, as far as reading saved scenarios looks into one. serde_json's [`Value`]
+/// is one ([`Library::read`], natively and in tests); the page implements it over the browser's
+/// own `JSON.parse` (`ui::browser`), so that its first load carries no JSON parser.
+pub trait JsonView: Sized {
+    /// The elements, when this is an array.
+    fn items(&self) -> Option<Vec<Self>>;
+    /// Whether this is an object (not an array, not null).
+    fn is_object(&self) -> bool;
+    /// The member `key`, when this is an object that has it.
+    fn member(&self, key: &str) -> Option<Self>;
+    /// The text, when this is a string.
+    fn as_str(&self) -> Option<String>;
+    /// The number, when this is a whole number from 0 up.
+    fn as_u64(&self) -> Option<u64>;
+    /// This value as compact JSON text, to keep it aside.
+    fn to_json_text(&self) -> String;
+}
+
+impl JsonView for Value {
+    fn items(&self) -> Option<Vec<Value>> {
+        self.as_array().cloned()
+    }
+
+    fn is_object(&self) -> bool {
+        Value::is_object(self)
+    }
+
+    fn member(&self, key: &str) -> Option<Value> {
+        self.as_object()?.get(key).cloned()
+    }
+
+    fn as_str(&self) -> Option<String> {
+        Value::as_str(self).map(str::to_string)
+    }
+
+    fn as_u64(&self) -> Option<u64> {
+        Value::as_u64(self)
+    }
+
+    fn to_json_text(&self) -> String {
+        self.to_string()
+    }
 }

@@ -46,7 +46,7 @@ fn load_saved() -> Saved {
         kept_aside,
         mut messages,
         newer_version,
-    } = Library::read(&text);
+    } = browser::read_library(&text);
     let mut writable = !newer_version;
     let stamp = browser::now_ms();
     for (i, aside) in kept_aside.iter().enumerate() {
@@ -132,7 +132,7 @@ fn name_of(library: &Library, id: &str) -> String {
 
 /// Adds the scenarios of an imported file's text and says what came in.
 fn import(library: &mut Library, text: &str) -> String {
-    let outcome = Library::read(text);
+    let outcome = browser::read_library(text);
     let added = library.merge(&outcome.library);
     // The storage wording of `outcome.messages` does not fit an import: nothing is kept aside
     // here, the file itself stays as it is.
