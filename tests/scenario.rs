@@ -93,6 +93,8 @@ const NULLABLE_KEYS: &[&str] = &[
     "storage_mb",
     "max_speed_blur_mps",
     "max_speed_trigger_mps",
+    // Null when the inputs lie inside GIQE 5's range (url-and-report.md).
+    "niirs_note",
 ];
 
 /// serde_json writes a non-finite f64 as null, so a null anywhere else is a NaN or an infinity.
