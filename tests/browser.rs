@@ -83,6 +83,15 @@ async fn wait_until(what: &str, mut ready: impl FnMut() -> bool) {
 }
 
 impl Mounted {
+    /// Waits until the page has caught up with its scenario: panels out of view, the QR code and
+    /// the printed sheet follow once typing pauses (`main[data-settled]`).
+    async fn settled(&self) {
+        wait_until("the page to settle", || {
+            self.find("main[data-settled=\"true\"]").is_some()
+        })
+        .await;
+    }
+
     fn find(&self, selector: &str) -> Option<Element> {
         self.root.query_selector(selector).ok().flatten()
     }
@@ -238,11 +247,13 @@ async fn typing_a_bad_value_shows_its_message_beside_the_field_and_keeps_the_res
         app.input("in-focal").get_attribute("aria-invalid").as_deref(),
         Some("true")
     );
+    app.settled().await;
     assert_shows(&app, &report);
 
     app.type_into("in-focal", "24");
     wait_until("the focal error to clear", || app.field_error("in-focal").is_none()).await;
     raw.set("focal", "24");
+    app.settled().await;
     assert_shows(&app, &report_of(&raw));
 }
 
@@ -267,6 +278,7 @@ async fn a_field_keeps_an_unfinished_number_while_typing() {
         RawScenario::from_query(&address_query()).get("focal") == Some("1.")
     })
     .await;
+    app.settled().await;
     assert_shows(&app, &report);
 }
 

@@ -20,6 +20,8 @@ use crate::ui::components::survey::SurveyPanel;
 use crate::ui::components::target::TargetPanel;
 use crate::ui::state::{Action, State};
 use std::rc::Rc;
+use wasm_bindgen::closure::Closure;
+use wasm_bindgen::JsCast;
 use yew::prelude::*;
 
 /// The scenario the page opens with: the one in its address, or the first demo.
@@ -146,6 +148,22 @@ pub fn app() -> Html {
     };
     let qr = settled.qr.clone();
 
+    // Panels out of view show the settled scenario: a keystroke draws what a person can see, and
+    // the rest follow once typing pauses, or at once when scrolled into view.
+    let in_view = use_in_view(&settled.link);
+    let shown = |id: &str| -> Rc<State> {
+        if in_view.as_ref().is_none_or(|ids| ids.iter().any(|v| v == id)) {
+            snapshot.clone()
+        } else {
+            settled.state.clone()
+        }
+    };
+    let chart_shown = if Rc::ptr_eq(&shown("chart"), &snapshot) {
+        chart.clone()
+    } else {
+        settled.chart.clone()
+    };
+
     let report = &snapshot.plan.report;
     let units = snapshot.plan.scenario.units;
 
@@ -157,18 +175,18 @@ pub fn app() -> Html {
             <span>{ if name.is_empty() { "Untitled scenario".to_string() } else { name } }</span>
             <a href="#results">{ format!("{} governs: {}", notes::limit_title(report.governing), format::length(report.limit_m, units)) }</a>
         </div>
-        <main class="layout">
+        <main class="layout" data-settled={(settled.link == link).to_string()}>
             <ScenarioForm state={snapshot.clone()} dispatch={dispatch.clone()} />
             <div class="outputs">
                 if snapshot.plan.scenario.name.ends_with("(demo)") {
                     <p class="intro">{ "A worked demo of invented places: change any input and watch which limit governs. “Demos” has another." }</p>
                 }
                 <Results state={snapshot.clone()} />
-                <Cautions state={snapshot.clone()} />
-                <LimitsChart state={snapshot.clone()} chart={chart.clone()} />
-                <SolvePanel state={snapshot.clone()} />
-                <TargetPanel state={snapshot.clone()} />
-                <SurveyPanel state={snapshot.clone()} />
+                <Cautions state={shown("cautions")} />
+                <LimitsChart state={shown("chart")} chart={chart_shown} />
+                <SolvePanel state={shown("solve")} />
+                <TargetPanel state={shown("target")} />
+                <SurveyPanel state={shown("survey")} />
                 <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} {on_print} link={link.clone()} qr={qr.clone()} />
             </div>
         </main>
@@ -189,4 +207,49 @@ fn settle(settled: &UseStateHandle<Settled>, latest: &Latest) {
     if let Some((state, chart, link)) = latest.borrow().as_ref() {
         settled.set(Settled::of(state, chart, link));
     }
+}
+
+/// The output panels whose drawing may wait while they are out of view.
+const DEFERRABLE: [&str; 5] = ["cautions", "chart", "solve", "target", "survey"];
+
+/// The ids of the deferrable panels now in the viewport (`None` until the browser has said, and
+/// where it cannot: then every panel is drawn live). The panels are looked up again whenever the
+/// settled scenario changes, in case one was drawn anew.
+#[hook]
+fn use_in_view(settled_link: &AttrValue) -> Option<Vec<String>> {
+    let in_view = use_state_eq(|| None::<Vec<String>>);
+    let observer = use_mut_ref(|| None::<(web_sys::IntersectionObserver, Closure<dyn Fn(js_sys::Array)>)>);
+    {
+        let (in_view, observer) = (in_view.clone(), observer.clone());
+        use_effect_with(settled_link.clone(), move |_| {
+            let mut slot = observer.borrow_mut();
+            if slot.is_none() {
+                let seen = Rc::new(std::cell::RefCell::new(std::collections::BTreeSet::<String>::new()));
+                let on_change = Closure::<dyn Fn(js_sys::Array)>::new(move |entries: js_sys::Array| {
+                    for entry in entries.iter() {
+                        let entry: web_sys::IntersectionObserverEntry = entry.unchecked_into();
+                        let id = entry.target().id();
+                        if entry.is_intersecting() {
+                            seen.borrow_mut().insert(id);
+                        } else {
+                            seen.borrow_mut().remove(&id);
+                        }
+                    }
+                    in_view.set(Some(seen.borrow().iter().cloned().collect()));
+                });
+                if let Ok(made) = web_sys::IntersectionObserver::new(on_change.as_ref().unchecked_ref()) {
+                    *slot = Some((made, on_change));
+                }
+            }
+            if let (Some((observer, _)), Some(document)) = (slot.as_ref(), web_sys::window().and_then(|w| w.document()))
+            {
+                for id in DEFERRABLE {
+                    if let Some(panel) = document.get_element_by_id(id) {
+                        observer.observe(&panel);
+                    }
+                }
+            }
+        });
+    }
+    (*in_view).clone()
 }

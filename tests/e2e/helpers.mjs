@@ -74,6 +74,15 @@ export async function start() {
   return { origin, server, browser, open, close };
 }
 
+/**
+ * Waits until the page has settled on its scenario: panels out of view follow the scenario once
+ * typing pauses (and the QR code and the printed sheet always do), so what a test reads of them
+ * after a change is read once the page says so.
+ */
+export async function settled(page) {
+  await page.waitForSelector('main[data-settled="true"]', { timeout: 15000 });
+}
+
 /** Path of the report example; scripts/test builds it once before the tests. */
 function reportBinary() {
   if (process.env.SHARPFIELD_REPORT) return process.env.SHARPFIELD_REPORT;
@@ -99,8 +108,10 @@ export function report(query) {
   return reports([query])[0];
 }
 
-/** Every displayed `[data-key]` element: its key, its data-si (null when absent) and its text. */
-export function displayed(page) {
+/** Every displayed `[data-key]` element: its key, its data-si (null when absent) and its text, once
+ * the page has settled on its scenario. */
+export async function displayed(page) {
+  await settled(page);
   return page.$$eval('[data-key]', (els) => els.map((e) => ({
     key: e.getAttribute('data-key'),
     si: e.getAttribute('data-si'),

@@ -5,7 +5,7 @@
 // page then shows, so no expected number is written here.
 import { after, before, test } from 'node:test';
 import assert from 'node:assert/strict';
-import { close, displayed, mismatches, report, start, typeInto } from './helpers.mjs';
+import { close, displayed, mismatches, report, settled, start, typeInto } from './helpers.mjs';
 
 const NADIR = 'v=1&name=Edit+me&sw=13.2&sh=8.8&cols=5472&rows=3648&focal=8.8&fnum=4&wl=550&h=80&gd=0'
   + '&air=power&cn2=1e-13&cexp=-1.333&speed=8&shutter=0.001&need=0.03&tdim=0.75';
@@ -33,7 +33,8 @@ async function showsReportOfAddress(page) {
 }
 
 /** What the on-screen chart draws: axis extent, plot box, the current marker and each series' path. */
-function chart(page) {
+async function chart(page) {
+  await settled(page);
   return page.$eval('#chart svg.chart', (svg) => {
     const plot = svg.querySelector('rect.plot-bg');
     const current = svg.querySelector('g.marker[data-marker=current] line');

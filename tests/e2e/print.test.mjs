@@ -5,7 +5,7 @@
 // to tests/e2e/artifacts/ for a person to look at.
 import { after, before, test } from 'node:test';
 import assert from 'node:assert/strict';
-import { artifact, start } from './helpers.mjs';
+import { artifact, settled, start } from './helpers.mjs';
 import { RENDERED, flat, openPage, pdfInfo, pdfText, pdfToPng } from './offline-helpers.mjs';
 
 const LONG_NAME = 'Northern paddock, eastern slope and the creek flats below the old dairy — second pass after the storm, fence lines';
@@ -38,6 +38,7 @@ after(() => app?.close());
 
 /** What the screen says, to be found again on paper. */
 async function screenFacts(page) {
+  await settled(page);
   return page.evaluate(() => {
     const text = (sel) => document.querySelector(sel)?.textContent.trim() ?? null;
     const governs = text('[data-key="governing"] strong');
