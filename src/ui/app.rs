@@ -151,14 +151,15 @@ pub fn app() -> Html {
     // Panels out of view show the settled scenario: a keystroke draws what a person can see, and
     // the rest follow once typing pauses, or at once when scrolled into view.
     let in_view = use_in_view(&settled.link);
-    let shown = |id: &str| -> Rc<State> {
-        if in_view.as_ref().is_none_or(|ids| ids.iter().any(|v| v == id)) {
+    let live = |id: &str| in_view.as_ref().is_none_or(|ids| ids.iter().any(|v| v == id));
+    let shown = |id: &str| {
+        if live(id) {
             snapshot.clone()
         } else {
             settled.state.clone()
         }
     };
-    let chart_shown = if Rc::ptr_eq(&shown("chart"), &snapshot) {
+    let chart_shown = if live("chart") {
         chart.clone()
     } else {
         settled.chart.clone()

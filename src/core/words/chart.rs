@@ -9,6 +9,7 @@ use crate::core::words::format::significant;
 use crate::core::words::notes::{axis_noun, task_verb};
 use crate::core::words::units::Units;
 use crate::core::words::units::{METRES_PER_FOOT, METRES_PER_INCH};
+use std::fmt::Write;
 
 /// Size of the chart's view box and the margins around the plot area, in SVG user units.
 pub const WIDTH: f64 = 640.0;
@@ -320,25 +321,10 @@ fn push_tenths(d: &mut String, v: f64) {
     if tenths < 0 {
         d.push('-');
     }
+    // Whole numbers are written by the standard library's integer formatting, which is quick; it
+    // is the float formatting that is slow.
     let magnitude = tenths.unsigned_abs();
-    let whole = magnitude / 10;
-    // Digits of the whole part, most significant first.
-    let mut digits = [0u8; 20];
-    let mut n = whole;
-    let mut len = 0;
-    loop {
-        digits[len] = b'0' + (n % 10) as u8;
-        len += 1;
-        n /= 10;
-        if n == 0 {
-            break;
-        }
-    }
-    for &digit in digits[..len].iter().rev() {
-        d.push(char::from(digit));
-    }
-    d.push('.');
-    d.push(char::from(b'0' + (magnitude % 10) as u8));
+    let _ = write!(d, "{}.{}", magnitude / 10, magnitude % 10);
 }
 
 fn capitalise(text: &str) -> String {
