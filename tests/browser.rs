@@ -157,8 +157,11 @@ fn address_query() -> String {
     search.trim_start_matches('?').to_string()
 }
 
-/// Asserts that every `data-key` element carries the report's value, in SI, as the report has it.
-fn assert_shows(mounted: &Mounted, report: &Report) {
+/// Asserts that every `data-key` element carries the report's value, in SI, as the report has it,
+/// once the page has settled (panels out of view follow the scenario after typing pauses, so a
+/// read before that could see the one before).
+async fn assert_shows(mounted: &Mounted, report: &Report) {
+    mounted.settled().await;
     let fields = serde_json::to_value(report).expect("report as JSON");
     let shown = mounted.shown();
     assert!(shown.len() >= 10, "only {} figures shown", shown.len());
@@ -199,7 +202,7 @@ async fn opened_without_a_scenario_the_app_shows_the_demo_and_its_report() {
     let app = mount("").await;
     let raw = demo::pasture_survey().to_raw();
     assert_eq!(app.input("in-name").value(), raw.get("name").unwrap_or_default());
-    assert_shows(&app, &report_of(&raw));
+    assert_shows(&app, &report_of(&raw)).await;
     for key in [
         "limit_m",
         "gsd_m",
@@ -222,7 +225,7 @@ async fn a_scenario_in_the_address_is_shown_with_its_report() {
     let query = "v=1&sw=6.17&sh=4.55&cols=4000&rows=3000&focal=100&fnum=4&wl=550&h=8&gd=1500&air=hv57&speed=0&shutter=0.002&need=0.1";
     let app = mount(query).await;
     assert_eq!(app.input("in-gd").value(), "1500");
-    assert_shows(&app, &report_for_query(query));
+    assert_shows(&app, &report_for_query(query)).await;
 }
 
 #[wasm_bindgen_test]
@@ -247,14 +250,12 @@ async fn typing_a_bad_value_shows_its_message_beside_the_field_and_keeps_the_res
         app.input("in-focal").get_attribute("aria-invalid").as_deref(),
         Some("true")
     );
-    app.settled().await;
-    assert_shows(&app, &report);
+    assert_shows(&app, &report).await;
 
     app.type_into("in-focal", "24");
     wait_until("the focal error to clear", || app.field_error("in-focal").is_none()).await;
     raw.set("focal", "24");
-    app.settled().await;
-    assert_shows(&app, &report_of(&raw));
+    assert_shows(&app, &report_of(&raw)).await;
 }
 
 #[wasm_bindgen_test]
@@ -278,8 +279,7 @@ async fn a_field_keeps_an_unfinished_number_while_typing() {
         RawScenario::from_query(&address_query()).get("focal") == Some("1.")
     })
     .await;
-    app.settled().await;
-    assert_shows(&app, &report);
+    assert_shows(&app, &report).await;
 }
 
 #[wasm_bindgen_test]
@@ -292,7 +292,7 @@ async fn choosing_a_sensor_format_fills_the_camera_fields() {
         assert_eq!(app.input(&format!("in-{key}")).value(), value, "{key}");
         raw.set(key, value);
     }
-    assert_shows(&app, &report_of(&raw));
+    assert_shows(&app, &report_of(&raw)).await;
 }
 
 /// Saved-scenario text read as the page reads it: the browser's own `JSON.parse`, seen through
