@@ -8,6 +8,8 @@ use serde_json::Value;
 use sharpfield::core::contract::inputs::{input, Input, INPUTS, NAME_MAX_CHARS};
 use sharpfield::core::contract::report::{report_for_query, report_json};
 use sharpfield::core::contract::scenario::{AirModel, Offset, RawScenario, Scenario};
+use sharpfield::core::physics::light::daylight::Sky;
+use sharpfield::core::physics::light::sun::CivilTime;
 use sharpfield::core::physics::target::CdModel;
 use sharpfield::core::planning::solve::TargetPlane;
 use sharpfield::core::planning::survey::SurveySettings;
@@ -95,6 +97,19 @@ const NULLABLE_KEYS: &[&str] = &[
     "max_speed_trigger_mps",
     // Null when the inputs lie inside GIQE 5's range (url-and-report.md).
     "niirs_note",
+    // The light: no sun without a time and place, no light or signal without either.
+    "sun_elevation_deg",
+    "sun_azimuth_deg",
+    "illuminance_lx",
+    "ev100",
+    "target_e",
+    "background_e",
+    "noise_e",
+    "day",
+    "best",
+    "sunrise",
+    "sunset",
+    "max_speed_mps",
 ];
 
 /// serde_json writes a non-finite f64 as null, so a null anywhere else is a NaN or an infinity.
@@ -355,6 +370,28 @@ fn maybe(key: &'static str) -> BoxedStrategy<Option<f64>> {
     prop::option::of(in_range(key)).boxed()
 }
 
+/// A local date and time with an offset in quarter hours, as a `when` link can carry it.
+fn civil_time() -> impl Strategy<Value = CivilTime> {
+    (
+        1900i32..=2200,
+        1u32..=12,
+        1u32..=28,
+        0u32..24,
+        0u32..60,
+        0u32..60,
+        -48i32..=56,
+    )
+        .prop_map(|(year, month, day, hour, minute, second, quarters)| CivilTime {
+            year,
+            month,
+            day,
+            hour,
+            minute,
+            second: f64::from(second),
+            offset_minutes: quarters * 15,
+        })
+}
+
 fn extra_keys() -> impl Strategy<Value = Vec<(String, String)>> {
     prop::collection::vec(("[a-zA-Z_ü][a-zA-Z0-9_.ü-]{0,10}", any::<String>()), 0..4).prop_map(|pairs| {
         let mut seen: Vec<String> = Vec::new();
@@ -424,16 +461,39 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
         in_range("wfe"),
         in_range("fill"),
         in_range("jitter"),
-        in_range("snr"),
+        maybe("snr"),
     );
-    (optics, air, survey, place, (needs, chain)).prop_map(
+    let light = (
+        prop::option::of(civil_time()),
+        prop::sample::select(&[Sky::Clear, Sky::PartlyCloudy, Sky::Overcast][..]),
+        maybe("lux"),
+        in_range("refl"),
+        any::<bool>(),
+        in_range("iso"),
+        (maybe("baseiso"), maybe("fw"), maybe("rn"), maybe("fmin")),
+    );
+    (optics, air, survey, place, (needs, chain, light)).prop_map(
         |(
             (sw, sh, cols, rows, focal, fnum, wl, h, offset),
             (air, cn2, cexp, speed, shutter, rate, tspeed),
             (aw, al, fo, so, need, tdim, trig, endur, turn, mb, blur),
             (lat, lon, hdg, units, name, extra),
-            ((need_gsd, plane, cdm), (obsc, wfe, fill, jitter, snr)),
+            (
+                (need_gsd, plane, cdm),
+                (obsc, wfe, fill, jitter, snr),
+                (when, sky, lux, refl, auto_exposure, iso, (base_iso, fw, rn, fmin)),
+            ),
         )| Scenario {
+            when,
+            sky,
+            lux,
+            reflectance: refl,
+            auto_exposure,
+            iso,
+            base_iso,
+            full_well_e: fw,
+            read_noise_e: rn,
+            widest_f_number: fmin,
             name,
             sensor_width_mm: sw,
             sensor_height_mm: sh,

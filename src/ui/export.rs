@@ -6,7 +6,6 @@
 
 use crate::core::contract::scenario::Scenario;
 use crate::core::formats::geojson::survey_geojson_checked;
-use crate::core::physics::engine::evaluate;
 use crate::core::planning::survey::plan_survey;
 use std::cell::RefCell;
 use wasm_bindgen::closure::Closure;
@@ -18,7 +17,7 @@ const LOADER: &str = "./sharpfield-export_loader.js";
 /// The GeoJSON of a scenario's survey, or why it cannot be exported, in words.
 fn geojson_for(query: &str) -> Result<String, String> {
     let (scenario, _) = Scenario::from_query(query);
-    let inputs = scenario.survey_inputs(evaluate(&scenario.setup()).gsd_m);
+    let inputs = scenario.planned_survey_inputs();
     let plan = plan_survey(&inputs);
     survey_geojson_checked(&inputs, &plan, &scenario.name).map_err(|p| p.message().to_string())
 }

@@ -6,7 +6,7 @@
 use proptest::prelude::*;
 use sharpfield::core::contract::scenario::Scenario;
 use sharpfield::core::physics::chain::ChainInputs;
-use sharpfield::core::physics::engine::{evaluate, Setup};
+use sharpfield::core::physics::engine::Setup;
 use sharpfield::core::physics::geometry::Geometry;
 use sharpfield::core::physics::turbulence::Profile;
 use sharpfield::core::planning::survey::{plan_survey, SurveyInputs, SurveyPlan};
@@ -116,7 +116,7 @@ pub fn any_setup() -> impl Strategy<Value = Setup> {
 
 /// The survey inputs of a scenario, with the GSD from the engine's evaluation as the plan takes it.
 pub fn inputs(scenario: &Scenario) -> SurveyInputs {
-    scenario.survey_inputs(evaluate(&scenario.setup()).gsd_m)
+    scenario.planned_survey_inputs()
 }
 
 /// The survey plan of a scenario, as the plan computes it.

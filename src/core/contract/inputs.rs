@@ -7,7 +7,9 @@
 //! [`INPUTS`]; adding an input is one entry here plus its use.
 
 use crate::core::contract::scenario::{AirModel, Offset, RawScenario, Scenario, CONTRACT_VERSION};
-use crate::core::physics::chain::DEFAULT_SNR;
+use crate::core::formats::when::{parse_when, write_when, WHEN_FORMAT};
+use crate::core::physics::light::daylight::Sky;
+use crate::core::physics::light::sun::CivilTime;
 use crate::core::physics::target::CdModel;
 use crate::core::planning::solve::TargetPlane;
 use crate::core::words::format::format_number;
@@ -44,6 +46,11 @@ pub enum Kind {
         /// `1/1000` is read as a fraction (exposure times).
         fraction: bool,
         slot: NumberSlot,
+    },
+    /// A local date and time with its UTC offset (ISO 8601, `when`); left out unless given.
+    Moment {
+        get: fn(&Scenario) -> Option<CivilTime>,
+        set: fn(&mut Scenario, CivilTime),
     },
     /// One of a list of words; `words[default]` when left out or not known (`None`: the scenario
     /// goes without it, and `unset` says what happens then).
@@ -216,6 +223,23 @@ const GEOMETRY: &[&str] = &[
 ];
 const PIXEL_PITCH: &[&str] = &["pitch_m", "gsd_m", "gsd_ground_m", "sampling_m", "px_per_m", "q"];
 const TURBULENCE: &[&str] = &["r0_m", "turbulence_m"];
+/// Report fields that follow the light: the exposure time used, the smear and the SNR, and so
+/// the image quality.
+const LIGHT: &[&str] = &[
+    "illuminance_lx",
+    "ev100",
+    "exposure_s",
+    "motion_m",
+    "snr",
+    "grd_m",
+    "rer_along",
+    "rer_across",
+    "rer",
+    "overshoot",
+    "niirs",
+];
+/// Report fields that follow the sensor's charge and noise.
+const SIGNAL: &[&str] = &["snr", "grd_m", "rer_along", "rer_across", "rer", "overshoot", "niirs"];
 /// The image-quality figures of the imaging chain.
 const CHAIN: &[&str] = &["grd_m", "rer_along", "rer_across", "rer", "overshoot", "niirs"];
 
@@ -345,7 +369,7 @@ pub const INPUTS: &[Input] = &[
     number("shutter", "Exposure time", "s", (1e-6, 10.0), plain!(shutter_s))
         .or(0.001)
         .fraction()
-        .feeds(&["motion_m"]),
+        .feeds(&["exposure_s", "motion_m"]),
     number(
         "rate",
         "Camera turning rate during the exposure",
@@ -397,9 +421,14 @@ pub const INPUTS: &[Input] = &[
         "overshoot",
         "niirs",
     ]),
-    number("snr", "Contrast signal-to-noise ratio", "", (1.0, 1000.0), plain!(snr))
-        .or(DEFAULT_SNR)
-        .feeds(CHAIN),
+    number(
+        "snr",
+        "Contrast signal-to-noise ratio",
+        "",
+        (1.0, 1000.0),
+        optional!(snr),
+    )
+    .feeds(CHAIN),
     number(
         "aw",
         "Area width (across the lines)",
@@ -524,6 +553,88 @@ pub const INPUTS: &[Input] = &[
     )
     .or(0.0),
     Input {
+        key: "when",
+        label: "Date and time",
+        unit: "",
+        kind: Kind::Moment {
+            get: |s| s.when,
+            set: |s, t| s.when = Some(t),
+        },
+        ..INPUTS_BASE
+    }
+    .feeds(LIGHT),
+    Input {
+        key: "sky",
+        label: "Sky",
+        unit: "",
+        kind: Kind::Choice {
+            words: &["clear", "partly", "overcast"],
+            default: Some(0),
+            unset: "",
+            get: |s| Some(s.sky as usize),
+            set: |s, i| {
+                s.sky = [Sky::Clear, Sky::PartlyCloudy, Sky::Overcast]
+                    .get(i)
+                    .copied()
+                    .unwrap_or_default()
+            },
+        },
+        ..INPUTS_BASE
+    }
+    .feeds(LIGHT),
+    number(
+        "lux",
+        "Illuminance on the ground",
+        "lx",
+        (0.01, 200_000.0),
+        optional!(lux),
+    )
+    .feeds(LIGHT),
+    number("refl", "Mean scene reflectance", "", (0.01, 1.0), plain!(reflectance))
+        .or(0.18)
+        .feeds(LIGHT),
+    Input {
+        key: "expmode",
+        label: "Exposure mode",
+        unit: "",
+        kind: Kind::Choice {
+            words: &["set", "auto"],
+            default: Some(0),
+            unset: "",
+            get: |s| Some(usize::from(s.auto_exposure)),
+            set: |s, i| s.auto_exposure = i == 1,
+        },
+        ..INPUTS_BASE
+    }
+    .feeds(LIGHT),
+    number("iso", "ISO speed", "", (25.0, 409_600.0), plain!(iso))
+        .or(100.0)
+        .feeds(LIGHT),
+    number(
+        "baseiso",
+        "Base ISO of the sensor",
+        "",
+        (25.0, 3200.0),
+        optional!(base_iso),
+    )
+    .feeds(SIGNAL),
+    number(
+        "fw",
+        "Full-well capacity",
+        "electrons",
+        (100.0, 1_000_000.0),
+        optional!(full_well_e),
+    )
+    .feeds(SIGNAL),
+    number("rn", "Read noise", "electrons", (0.0, 100.0), optional!(read_noise_e)).feeds(SIGNAL),
+    number(
+        "fmin",
+        "Widest aperture of the lens",
+        "f-number",
+        (0.5, 64.0),
+        optional!(widest_f_number),
+    ),
+    Input {
         key: "units",
         label: "Display units",
         unit: "",
@@ -626,6 +737,7 @@ impl Input {
                 _ => format!("one of {}", words.join(", ")),
             },
             Kind::Text { max_chars, .. } => format!("text of at most {max_chars} characters"),
+            Kind::Moment { .. } => WHEN_FORMAT.to_string(),
             Kind::Version => "1".to_string(),
         }
     }
@@ -684,6 +796,7 @@ impl Input {
             Kind::Text { get, .. } => Some(get(scenario).to_string()).filter(|t| !t.is_empty()),
             Kind::Number { slot, .. } => (slot.get)(scenario).map(format_number),
             Kind::Choice { words, get, .. } => get(scenario).and_then(|i| words.get(i)).map(|w| w.to_string()),
+            Kind::Moment { get, .. } => get(scenario).map(|t| write_when(&t)),
         }
     }
 
@@ -733,6 +846,17 @@ impl Input {
                             Some(word) => format!("{word} is used"),
                             None => unset.to_string(),
                         }
+                    ),
+                ),
+            },
+            (Kind::Moment { set, .. }, Some(t)) => match parse_when(t) {
+                Some(time) => set(scenario, time),
+                None => error(
+                    input.key,
+                    format!(
+                        "{} '{}' is not {WHEN_FORMAT}; the sun is left out.",
+                        input.label,
+                        clip(t.trim(), 32)
                     ),
                 ),
             },

@@ -2,10 +2,11 @@
 //! sweep for the solves and the chart, the survey and its layout, whether it can be exported, and the
 //! report — so that the page and the printed sheet share one computation per scenario.
 
-use crate::core::contract::report::{Report, SweepFigures};
+use crate::core::contract::report::{BestReport, Computed, DayReport, Report, SweepFigures};
 use crate::core::contract::scenario::{FieldError, RawScenario, Scenario};
 use crate::core::formats::geojson::{export_check, ExportProblem};
 use crate::core::physics::engine::{evaluate, Evaluation, Setup};
+use crate::core::planning::light::{best_settings, lit, plan_day, Light};
 use crate::core::planning::solve::Sweep;
 use crate::core::planning::survey::{layout, plan_survey, Layout, SurveyInputs};
 
@@ -13,6 +14,8 @@ use crate::core::planning::survey::{layout, plan_survey, Layout, SurveyInputs};
 #[derive(Clone, Debug, PartialEq)]
 pub struct Plan {
     pub scenario: Scenario,
+    /// The light: the sun, the exposure time used and the SNR (the setup is lit by it).
+    pub light: Light,
     pub setup: Setup,
     pub evaluation: Evaluation,
     pub sweep: Sweep,
@@ -49,7 +52,8 @@ impl Plan {
     }
 
     fn build_after(scenario: Scenario, errors: Vec<FieldError>, previous: Option<&Plan>) -> Plan {
-        let setup = scenario.setup();
+        let light = scenario.light();
+        let setup = lit(&scenario.unlit_setup(), &light);
         let evaluation = evaluate(&setup);
         let axis = scenario.solve_axis();
         let (sweep, previous) = match previous.and_then(|p| p.sweep.moved_to(setup, axis).map(|sweep| (sweep, p))) {
@@ -66,13 +70,25 @@ impl Plan {
             }
             _ => SweepFigures::new(&scenario, &sweep),
         };
-        let survey_inputs = scenario.survey_inputs(evaluation.gsd_m);
+        let survey_inputs = scenario.survey_inputs(evaluation.gsd_m, light.exposure_s);
         let survey = plan_survey(&survey_inputs);
         let layout = layout(&survey, &survey_inputs);
         let export_ready = export_check(&survey_inputs);
-        let report = Report::new(&scenario, &setup, &evaluation, &sweep, &sweep_figures, &survey, errors);
+        let report = Report::new(
+            &scenario,
+            &Computed {
+                setup: &setup,
+                evaluation: &evaluation,
+                sweep: &sweep,
+                figures: &sweep_figures,
+                survey: &survey,
+                light: &light,
+            },
+            errors,
+        );
         Plan {
             scenario,
+            light,
             setup,
             evaluation,
             sweep,
@@ -82,5 +98,27 @@ impl Plan {
             export_ready,
             report,
         }
+    }
+}
+
+/// What a plan adds once typing pauses (the page) or at once (the report): the day's hours and the
+/// best settings, each some hundreds of evaluations, too many for every keystroke.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Extras {
+    pub day: Option<DayReport>,
+    pub best: Option<BestReport>,
+}
+
+impl Plan {
+    /// The day at the place and the best settings under this light.
+    pub fn extras(&self) -> Extras {
+        let s = &self.scenario;
+        let inputs = s.light_inputs();
+        let need = s.need();
+        let day = plan_day(&inputs, &self.setup, &need).map(|d| DayReport::new(&d));
+        let widest = s.widest_f_number.unwrap_or(s.f_number);
+        let best =
+            best_settings(&inputs, &self.setup, widest, &need, self.sweep.axis).map(|b| BestReport::new(&b, s.units));
+        Extras { day, best }
     }
 }

@@ -9,10 +9,12 @@ use crate::core::physics::optics;
 use crate::core::physics::target::{people_level, task_chances, CdModel, PeopleLevel, TaskChance};
 use crate::core::physics::turbulence::{rytov_variance, SlantPath};
 use crate::core::planning::cautions::{self, CautionInputs};
+use crate::core::planning::light::{BestSettings, Day, Light, LightSource, SnrSource};
 use crate::core::planning::solve::{
     focal_needed, task_ranges, Axis, Crossing, EnvelopeChange, FocalNeed, Reach, Sweep, TargetPlane, TaskRange,
 };
 use crate::core::planning::survey::SurveyPlan;
+use crate::core::words::light::{self as light_words, LightNoteWords};
 use crate::core::words::notes::{self, CautionWords, SurveyWords};
 use serde::Serialize;
 
@@ -106,6 +108,32 @@ pub struct Report {
     /// The highest level for watching people that the pixel density reaches (null below 25 px/m).
     pub people_level: Option<PeopleLevel>,
     pub cautions: Vec<CautionWords>,
+    /// The sun's elevation and azimuth (from north, clockwise) at `when` (null without it).
+    pub sun_elevation_deg: Option<f64>,
+    pub sun_azimuth_deg: Option<f64>,
+    /// Illuminance on the ground, lux, where it comes from, and the EV at ISO 100 (`refl`).
+    pub illuminance_lx: Option<f64>,
+    pub light_source: LightSource,
+    pub ev100: Option<f64>,
+    /// The exposure time used (typed, or metered with `expmode=auto`), and whether it was metered.
+    pub exposure_s: f64,
+    pub metered: bool,
+    /// Electrons of the 15 % target and the 7 % background, and the noise (null without light).
+    pub target_e: Option<f64>,
+    pub background_e: Option<f64>,
+    pub noise_e: Option<f64>,
+    /// The sensor figures used: full well and read noise (electrons), base ISO.
+    pub full_well_e: f64,
+    pub read_noise_e: f64,
+    pub base_iso: f64,
+    /// Where the contrast SNR comes from: typed, the light, or assumed.
+    pub snr_source: SnrSource,
+    pub light_notes: Vec<LightNoteWords>,
+    /// The day of `when` at the place: sunrise, noon, sunset and the hours good to fly (null
+    /// without a time and place). Computed apart from the keystroke's figures (`Plan::extras`).
+    pub day: Option<DayReport>,
+    /// The settings that resolve the finest detail under this light (null without light).
+    pub best: Option<BestReport>,
     #[serde(flatten)]
     pub survey: SurveyPlan,
     /// The survey's flags, guidance and notes in words (flattened after its figures).
@@ -113,6 +141,99 @@ pub struct Report {
     pub survey_words: SurveyWords,
     pub errors: Vec<FieldError>,
     pub ignored: Vec<String>,
+}
+
+/// The day of `when` at the place, as the report gives it; clock times in `when`'s offset.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct DayReport {
+    pub sunrise: Option<String>,
+    pub sunset: Option<String>,
+    pub noon: String,
+    pub noon_elevation_deg: f64,
+    /// The hours when the sun is at least 15° high and the need (if any) is met under its light,
+    /// as "HH:MM–HH:MM".
+    pub windows: Vec<String>,
+    /// Their total length, hours.
+    pub good_hours: f64,
+}
+
+impl DayReport {
+    /// The day in the report's words.
+    pub fn new(day: &Day) -> DayReport {
+        let at = |t: f64| light_words::clock(t, day.offset_minutes);
+        DayReport {
+            sunrise: day.sunrise_unix_s.map(at),
+            sunset: day.sunset_unix_s.map(at),
+            noon: at(day.noon_unix_s),
+            noon_elevation_deg: day.noon_elevation_deg,
+            windows: day
+                .windows
+                .iter()
+                .map(|&(a, b)| format!("{}–{}", at(a), at(b)))
+                .collect(),
+            good_hours: day.windows.iter().map(|&(a, b)| (b - a) / 3600.0).sum(),
+        }
+    }
+}
+
+/// The best settings as the report gives them.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct BestReport {
+    pub f_number: f64,
+    pub exposure_s: f64,
+    pub iso: f64,
+    /// The detail resolved (coarser GRD, normal to the view) with them, and as set now.
+    pub resolved_m: f64,
+    pub current_resolved_m: f64,
+    pub niirs: f64,
+    pub snr: f64,
+    pub governing: Limit,
+    /// The greatest height or ground distance, and ground speed, that meet the need with them.
+    pub reach_m: Option<f64>,
+    pub max_speed_mps: Option<f64>,
+    /// Why: what one step either way of each setting gives.
+    pub why: Vec<String>,
+}
+
+impl BestReport {
+    /// The best settings in the report's words.
+    pub fn new(best: &BestSettings, units: crate::core::words::units::Units) -> BestReport {
+        let mut why = Vec::new();
+        let f = |n: f64| format!("f/{}", crate::core::words::format::significant(n));
+        let iso = |s: f64| format!("ISO {}", s.round());
+        for (label, trade) in [
+            (best.wider.map(|t| format!("wider, {}", f(t.value))), best.wider),
+            (
+                best.narrower.map(|t| format!("narrower, {}", f(t.value))),
+                best.narrower,
+            ),
+            (
+                best.lower_iso.map(|t| format!("lower, {}", iso(t.value))),
+                best.lower_iso,
+            ),
+            (
+                best.higher_iso.map(|t| format!("higher, {}", iso(t.value))),
+                best.higher_iso,
+            ),
+        ] {
+            if let (Some(label), Some(trade)) = (label, trade) {
+                why.push(light_words::trade(&label, &trade, units));
+            }
+        }
+        BestReport {
+            f_number: best.f_number,
+            exposure_s: best.exposure_s,
+            iso: best.iso,
+            resolved_m: best.resolved_m,
+            current_resolved_m: best.current_resolved_m,
+            niirs: best.niirs,
+            snr: best.snr,
+            governing: best.governing,
+            reach_m: best.reach.and_then(|r| r.position_m()),
+            max_speed_mps: best.max_speed_mps,
+            why,
+        }
+    }
 }
 
 /// What a target will look like: the cycles across it under `period_on_plane` (the GRD on its
@@ -154,18 +275,30 @@ impl SweepFigures {
     }
 }
 
+/// What a plan computed for a scenario, from which its report is written.
+#[derive(Clone, Copy)]
+pub struct Computed<'a> {
+    pub setup: &'a Setup,
+    pub evaluation: &'a Evaluation,
+    pub sweep: &'a Sweep,
+    /// The solves on the sweep.
+    pub figures: &'a SweepFigures,
+    pub survey: &'a SurveyPlan,
+    pub light: &'a Light,
+}
+
 impl Report {
-    /// The report of a validated scenario from its engine setup, evaluation, sweep, the solves on
-    /// it and the survey plan.
-    pub fn new(
-        scenario: &Scenario,
-        setup: &Setup,
-        e: &Evaluation,
-        sweep: &Sweep,
-        figures: &SweepFigures,
-        survey: &SurveyPlan,
-        errors: Vec<FieldError>,
-    ) -> Report {
+    /// The report of a validated scenario from what its plan computed: the engine setup, the
+    /// evaluation, the sweep and the solves on it, the survey plan and the light.
+    pub fn new(scenario: &Scenario, parts: &Computed, errors: Vec<FieldError>) -> Report {
+        let Computed {
+            setup,
+            evaluation: e,
+            sweep,
+            figures,
+            survey,
+            light,
+        } = *parts;
         let need = scenario.need();
         let plane_stretch = need.plane.stretch(e.look_angle_deg);
         let reach = figures.reach;
@@ -187,6 +320,7 @@ impl Report {
             setup.wavelength_m,
         );
         let people = people_level(px_per_m);
+        let sensor = scenario.sensor();
         let image = quality(setup, e);
         let cautions = cautions::cautions(CautionInputs {
             height_m: scenario.height_m,
@@ -262,6 +396,23 @@ impl Report {
             people_level: people,
             rytov,
             cautions: notes::cautions(&cautions),
+            sun_elevation_deg: light.sun.map(|s| s.elevation_deg),
+            sun_azimuth_deg: light.sun.map(|s| s.azimuth_deg),
+            illuminance_lx: light.illuminance_lx,
+            light_source: light.source,
+            ev100: light.ev100,
+            exposure_s: light.exposure_s,
+            metered: light.metered,
+            target_e: light.signal.map(|s| s.target_e),
+            background_e: light.signal.map(|s| s.background_e),
+            noise_e: light.signal.map(|s| s.noise_e),
+            full_well_e: sensor.full_well_e,
+            read_noise_e: sensor.read_noise_e,
+            base_iso: sensor.base_iso,
+            snr_source: light.snr_source,
+            light_notes: light.notes.iter().map(light_words::light_note).collect(),
+            day: None,
+            best: None,
             survey: survey.clone(),
             survey_words: notes::survey_words(survey, scenario.units),
             errors,
@@ -270,9 +421,15 @@ impl Report {
     }
 }
 
-/// The report for a URL query.
+/// The report for a URL query, with the day and the best settings (`Plan::extras`).
 pub fn report_for_query(query: &str) -> Report {
-    Plan::from_raw(&RawScenario::from_query(query)).report
+    let plan = Plan::from_raw(&RawScenario::from_query(query));
+    let extras = plan.extras();
+    Report {
+        day: extras.day,
+        best: extras.best,
+        ..plan.report
+    }
 }
 
 /// The report as one line of JSON.

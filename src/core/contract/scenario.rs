@@ -9,11 +9,15 @@
 //! which also holds the contract's defaults. [`Scenario::setup`] then converts to SI for the engine.
 
 use crate::core::contract::inputs::INPUTS;
-use crate::core::physics::chain::ChainInputs;
+use crate::core::physics::chain::{ChainInputs, DEFAULT_SNR};
 use crate::core::physics::engine::Setup;
 use crate::core::physics::geometry::Geometry;
+use crate::core::physics::light::daylight::Sky;
+use crate::core::physics::light::exposure::Sensor;
+use crate::core::physics::light::sun::{CivilTime, Direction};
 use crate::core::physics::target::CdModel;
 use crate::core::physics::turbulence::Profile;
+use crate::core::planning::light::{lit, plan_light, Light, LightInputs};
 use crate::core::planning::solve::{Axis, Need, TargetPlane};
 use crate::core::planning::survey::{SurveyInputs, SurveySettings};
 use crate::core::words::units::Units;
@@ -155,8 +159,8 @@ pub struct Scenario {
     pub fill: f64,
     /// rms line-of-sight jitter during the exposure, µrad (`jitter`).
     pub jitter_urad: f64,
-    /// Contrast SNR (`snr`).
-    pub snr: f64,
+    /// Contrast SNR typed in (`snr`); without it the light's, or the assumed one.
+    pub snr: Option<f64>,
     pub need_m: Option<f64>,
     /// A required GSD on the target's plane (`needgsd`).
     pub need_gsd_m: Option<f64>,
@@ -167,6 +171,24 @@ pub struct Scenario {
     pub cd_model: CdModel,
     /// The survey keys.
     pub survey: SurveySettings,
+    /// Local date and time (`when`), for the sun at `lat`, `lon`.
+    pub when: Option<CivilTime>,
+    /// The sky (`sky`).
+    pub sky: Sky,
+    /// Illuminance on the ground typed in, lux (`lux`).
+    pub lux: Option<f64>,
+    /// Mean scene reflectance (`refl`).
+    pub reflectance: f64,
+    /// Metered exposure (`expmode=auto`) instead of the typed `shutter`.
+    pub auto_exposure: bool,
+    /// Chosen ISO (`iso`) and the sensor's base ISO (`baseiso`; generic when left out).
+    pub iso: f64,
+    pub base_iso: Option<f64>,
+    /// Full well and read noise, electrons (`fw`, `rn`; generic for the pitch when left out).
+    pub full_well_e: Option<f64>,
+    pub read_noise_e: Option<f64>,
+    /// The lens's widest aperture, f-number (`fmin`; the typed f-number when left out).
+    pub widest_f_number: Option<f64>,
     pub units: Units,
     /// Keys this version does not know, kept so that a re-shared link loses nothing.
     pub extra: Vec<(String, String)>,
@@ -262,8 +284,64 @@ impl Scenario {
         }
     }
 
-    /// Everything the resolution engine needs, in SI units.
+    /// Everything the resolution engine needs, in SI units, lit: the exposure time and the
+    /// contrast SNR follow the light ([`Scenario::light`]).
     pub fn setup(&self) -> Setup {
+        lit(&self.unlit_setup(), &self.light())
+    }
+
+    /// The sensor's charge and noise: as typed, or generic for the pixel pitch (from memory).
+    pub fn sensor(&self) -> Sensor {
+        let generic = Sensor::generic(self.pixel_pitch_m()).unwrap_or(Sensor {
+            full_well_e: 10_000.0,
+            read_noise_e: 3.0,
+            base_iso: 100.0,
+        });
+        Sensor {
+            full_well_e: self.full_well_e.unwrap_or(generic.full_well_e),
+            read_noise_e: self.read_noise_e.unwrap_or(generic.read_noise_e),
+            base_iso: self.base_iso.unwrap_or(generic.base_iso),
+        }
+    }
+
+    /// What the light depends on.
+    pub fn light_inputs(&self) -> LightInputs {
+        let view = match self.offset {
+            Offset::GroundDistance(g) if g <= 0.0 => Direction {
+                azimuth_deg: 0.0,
+                elevation_deg: -90.0,
+            },
+            _ => Direction {
+                azimuth_deg: self.survey.heading_deg,
+                elevation_deg: -(90.0 - self.geometry().look_angle_rad().to_degrees()),
+            },
+        };
+        LightInputs {
+            when: self.when,
+            latitude_deg: self.survey.latitude_deg,
+            longitude_deg: self.survey.longitude_deg,
+            sky: self.sky,
+            lux: self.lux,
+            reflectance: self.reflectance,
+            iso: self.iso,
+            auto_exposure: self.auto_exposure,
+            shutter_s: self.shutter_s,
+            f_number: self.f_number,
+            wavelength_nm: self.wavelength_nm,
+            sensor: self.sensor(),
+            typed_snr: self.snr,
+            assumed_snr: DEFAULT_SNR,
+            view,
+        }
+    }
+
+    /// The light: the sun, the illuminance, the exposure time used and the SNR.
+    pub fn light(&self) -> Light {
+        plan_light(&self.light_inputs())
+    }
+
+    /// The engine's setup with the typed exposure time and the assumed or typed SNR.
+    pub fn unlit_setup(&self) -> Setup {
         Setup {
             sensor_width_m: self.sensor_width_mm * 1e-3,
             sensor_height_m: self.sensor_height_mm * 1e-3,
@@ -283,7 +361,7 @@ impl Scenario {
                 wfe_waves: self.wfe_waves,
                 fill: self.fill,
                 jitter_rad: self.jitter_urad * 1e-6,
-                snr: self.snr,
+                snr: self.snr.unwrap_or(DEFAULT_SNR),
             },
         }
     }
@@ -315,8 +393,9 @@ impl Scenario {
         }
     }
 
-    /// What the survey is planned from; `gsd_m` is the GSD at the target, for the blur limit.
-    pub fn survey_inputs(&self, gsd_m: f64) -> SurveyInputs {
+    /// What the survey is planned from; `gsd_m` is the GSD at the target, for the blur limit, and
+    /// `exposure_s` the exposure time used (typed or metered).
+    pub fn survey_inputs(&self, gsd_m: f64, exposure_s: f64) -> SurveyInputs {
         let looks_down = match self.offset {
             Offset::GroundDistance(g) => g <= 0.0,
             Offset::Tilt(t) => t <= 0.0,
@@ -329,9 +408,16 @@ impl Scenario {
             looks_down,
             gsd_m,
             speed_mps: self.speed_mps,
-            shutter_s: self.shutter_s,
+            shutter_s: exposure_s,
             settings: self.survey,
         }
+    }
+
+    /// What the survey is planned from, from the scenario alone (the export module and tests).
+    pub fn planned_survey_inputs(&self) -> SurveyInputs {
+        let light = self.light();
+        let gsd_m = crate::core::physics::engine::evaluate(&lit(&self.unlit_setup(), &light)).gsd_m;
+        self.survey_inputs(gsd_m, light.exposure_s)
     }
 
     /// The keys this scenario carries that the contract does not know.

@@ -2,5 +2,6 @@
 
 pub mod chart;
 pub mod format;
+pub mod light;
 pub mod notes;
 pub mod units;

@@ -74,7 +74,7 @@ fn input_rows(plan: &Plan) -> Vec<(&'static str, String)> {
             format!(
                 "{} nm; contrast SNR {}",
                 format::significant(s.wavelength_nm),
-                format::significant(s.snr)
+                format::significant(r.snr)
             ),
         ),
         (

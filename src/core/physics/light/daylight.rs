@@ -8,9 +8,10 @@ use std::f64::consts::PI;
 pub const SOLAR_ILLUMINANCE_LX: f64 = 127_500.0;
 
 /// The sky over the scene.
-#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq)]
 pub enum Sky {
     /// Clear: direct sun and a clear sky.
+    #[default]
     Clear,
     /// Partly cloudy: direct sun through haze and cloud, a bright sky.
     PartlyCloudy,
