@@ -12,6 +12,7 @@ use crate::ui::components::cautions::Cautions;
 use crate::ui::components::chart::LimitsChart;
 use crate::ui::components::form::ScenarioForm;
 use crate::ui::components::header::Header;
+use crate::ui::components::light::LightPanel;
 use crate::ui::components::print::PrintSheet;
 use crate::ui::components::results::Results;
 use crate::ui::components::share::SharePanel;
@@ -187,6 +188,7 @@ pub fn app() -> Html {
                 <LimitsChart state={shown("chart")} chart={chart_shown} />
                 <SolvePanel state={shown("solve")} />
                 <TargetPanel state={shown("target")} />
+                <LightPanel state={shown("light")} dispatch={dispatch.clone()} />
                 <SurveyPanel state={shown("survey")} />
                 <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} {on_print} link={link.clone()} qr={qr.clone()} />
             </div>
@@ -211,7 +213,7 @@ fn settle(settled: &UseStateHandle<Settled>, latest: &Latest) {
 }
 
 /// The output panels whose drawing may wait while they are out of view.
-const DEFERRABLE: [&str; 5] = ["cautions", "chart", "solve", "target", "survey"];
+const DEFERRABLE: [&str; 6] = ["cautions", "chart", "solve", "target", "light", "survey"];
 
 /// The ids of the deferrable panels now in the viewport (`None` until the browser has said, and
 /// where it cannot: then every panel is drawn live). The panels are looked up again whenever the

@@ -166,6 +166,25 @@ pub fn local_date() -> String {
     )
 }
 
+/// The device's local date and time to the minute with its UTC offset, as the `when` key takes it
+/// (`2026-06-21T10:30+02:00`). The clock stays on the device.
+pub fn now_local_iso() -> String {
+    let now = js_sys::Date::new_0();
+    // getTimezoneOffset is UTC minus local, in minutes.
+    let offset = -(now.get_timezone_offset() as i32);
+    let sign = if offset < 0 { '-' } else { '+' };
+    format!(
+        "{:04}-{:02}-{:02}T{:02}:{:02}{sign}{:02}:{:02}",
+        now.get_full_year(),
+        now.get_month() + 1,
+        now.get_date(),
+        now.get_hours(),
+        now.get_minutes(),
+        offset.unsigned_abs() / 60,
+        offset.unsigned_abs() % 60
+    )
+}
+
 /// The local calendar date of an ISO 8601 time, or empty when it cannot be read.
 pub fn local_date_of(iso: &str) -> String {
     let date = js_sys::Date::new(&wasm_bindgen::JsValue::from_str(iso));

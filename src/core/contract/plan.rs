@@ -6,7 +6,7 @@ use crate::core::contract::report::{BestReport, Computed, DayReport, Report, Swe
 use crate::core::contract::scenario::{FieldError, RawScenario, Scenario};
 use crate::core::formats::geojson::{export_check, ExportProblem};
 use crate::core::physics::engine::{evaluate, Evaluation, Setup};
-use crate::core::planning::light::{best_settings, lit, plan_day, Light};
+use crate::core::planning::light::{best_settings, lit, plan_day, DaySample, Light};
 use crate::core::planning::solve::Sweep;
 use crate::core::planning::survey::{layout, plan_survey, Layout, SurveyInputs};
 
@@ -106,6 +106,8 @@ impl Plan {
 #[derive(Clone, Debug, PartialEq)]
 pub struct Extras {
     pub day: Option<DayReport>,
+    /// The day's samples, for the page's timeline (empty without a day).
+    pub day_samples: Vec<DaySample>,
     pub best: Option<BestReport>,
 }
 
@@ -115,10 +117,14 @@ impl Plan {
         let s = &self.scenario;
         let inputs = s.light_inputs();
         let need = s.need();
-        let day = plan_day(&inputs, &self.setup, &need).map(|d| DayReport::new(&d));
+        let day = plan_day(&inputs, &self.setup, &need);
         let widest = s.widest_f_number.unwrap_or(s.f_number);
         let best =
             best_settings(&inputs, &self.setup, widest, &need, self.sweep.axis).map(|b| BestReport::new(&b, s.units));
-        Extras { day, best }
+        Extras {
+            day_samples: day.as_ref().map(|d| d.samples.clone()).unwrap_or_default(),
+            day: day.as_ref().map(DayReport::new),
+            best,
+        }
     }
 }

@@ -4,7 +4,7 @@
 use crate::core::physics::light::sun::CivilTime;
 use crate::core::planning::light::{LightNote, LightSource, SnrSource, Trade, GLINT_WARN_DEG, LOW_SUN_DEG};
 use crate::core::words::format::{length, significant};
-use crate::core::words::notes::limit_title;
+use crate::core::words::notes::{limit_title, lower_first};
 use crate::core::words::units::Units;
 use serde::Serialize;
 
@@ -127,7 +127,7 @@ pub fn trade(label: &str, trade: &Trade, units: Units) -> String {
     format!(
         "{label}: {} resolved, {} governs, SNR {}",
         length(trade.resolved_m, units),
-        limit_title(trade.governing).to_ascii_lowercase(),
+        lower_first(limit_title(trade.governing)),
         significant(trade.snr)
     )
 }

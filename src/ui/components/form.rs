@@ -4,6 +4,7 @@
 use super::inputs::{
     AirGroup, BandGroup, CameraGroup, GeometryGroup, InputsProps, LensGroup, MotionGroup, NeedGroup, SurveyGroup,
 };
+use super::light::LightGroup;
 use super::name::NameField;
 use crate::core::contract::inputs::input;
 use yew::prelude::*;
@@ -23,12 +24,13 @@ pub fn scenario_form(props: &InputsProps) -> Html {
             <GeometryGroup state={state.clone()} dispatch={dispatch.clone()} />
             <AirGroup state={state.clone()} dispatch={dispatch.clone()} />
             <MotionGroup state={state.clone()} dispatch={dispatch.clone()} />
+            <LightGroup state={state.clone()} dispatch={dispatch.clone()} />
             <NeedGroup state={state.clone()} dispatch={dispatch.clone()} />
             <SurveyGroup state={state.clone()} dispatch={dispatch.clone()} />
             if !report.ignored.is_empty() {
                 <p class="note">{ format!("Kept but not used (unknown keys in the link): {}", report.ignored.join(", ")) }</p>
             }
-            { for report.errors.iter().filter(|e| !["name"].contains(&e.key.as_str()) && !input(&e.key).is_some_and(|i| i.is_number())).map(|e| html! {
+            { for report.errors.iter().filter(|e| !["name", "when"].contains(&e.key.as_str()) && !input(&e.key).is_some_and(|i| i.is_number())).map(|e| html! {
                 <p class="error" role="alert" data-error-key={e.key.clone()}>{ e.message.clone() }</p>
             }) }
         </form>

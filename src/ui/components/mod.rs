@@ -6,6 +6,7 @@ pub mod field;
 pub mod form;
 pub mod header;
 pub mod inputs;
+pub mod light;
 pub mod name;
 pub mod print;
 pub mod results;

@@ -7,6 +7,7 @@ use crate::core::formats::qr::QrSvg;
 use crate::core::physics::engine::Limit;
 use crate::core::words::chart::Chart;
 use crate::core::words::format;
+use crate::core::words::light::{exposure_time, light_source, snr_source};
 use crate::core::words::notes;
 use crate::ui::browser;
 use crate::ui::components::chart::chart_svg;
@@ -86,6 +87,24 @@ fn input_rows(plan: &Plan) -> Vec<(&'static str, String)> {
             ),
         ),
         ("Air", air_words(s.air, s.cn2_at_1m)),
+        (
+            "Light",
+            format!(
+                "{}; {}; exposure {} ({}), ISO {}, contrast SNR {} ({})",
+                s.when
+                    .map(|t| crate::core::formats::when::write_when(&t))
+                    .unwrap_or_else(|| "no date and time".to_string()),
+                match r.illuminance_lx {
+                    Some(lux) => format!("{} lx {}", format::significant(lux), light_source(r.light_source)),
+                    None => "light not known".to_string(),
+                },
+                exposure_time(r.exposure_s),
+                if r.metered { "metered" } else { "as typed" },
+                format::significant(s.iso),
+                format::significant(r.snr),
+                snr_source(r.snr_source)
+            ),
+        ),
         (
             "Motion",
             format!(
@@ -193,7 +212,10 @@ pub fn print_sheet(props: &PrintProps) -> Html {
                 <div class="print-diagram">{ diagram_html }</div>
             </div>
             <h2>{ "Cautions" }</h2>
-            <ul class="print-cautions">{ for r.cautions.iter().map(|c| html! { <li>{ c.text.clone() }</li> }) }</ul>
+            <ul class="print-cautions">
+                { for r.cautions.iter().map(|c| html! { <li>{ c.text.clone() }</li> }) }
+                { for r.light_notes.iter().map(|n| html! { <li>{ n.text.clone() }</li> }) }
+            </ul>
             <h2>{ "Sign-off" }</h2>
             <div class="signoff">
                 <p>{ "Pilot / operator" }<span class="blank"></span></p>
