@@ -47,7 +47,7 @@ fn input_rows(plan: &Plan) -> Vec<(&'static str, String)> {
         Offset::GroundDistance(_) => "straight down".to_string(),
         Offset::Tilt(t) => format!("tilted {}° from straight down", format::significant(t)),
     };
-    vec![
+    let mut rows = vec![
         (
             "Camera",
             format!(
@@ -87,7 +87,11 @@ fn input_rows(plan: &Plan) -> Vec<(&'static str, String)> {
             ),
         ),
         ("Air", air_words(s.air, s.cn2_at_1m)),
-        (
+    ];
+    // The light's row only when the scenario says something about the light (the sheet stays on
+    // one page for the longest scenarios without it).
+    if s.when.is_some() || s.lux.is_some() || s.auto_exposure {
+        rows.push((
             "Light",
             format!(
                 "{}; {}; exposure {} ({}), ISO {}, contrast SNR {} ({})",
@@ -104,17 +108,18 @@ fn input_rows(plan: &Plan) -> Vec<(&'static str, String)> {
                 format::significant(r.snr),
                 snr_source(r.snr_source)
             ),
+        ));
+    }
+    rows.push((
+        "Motion",
+        format!(
+            "{}, exposure {} s, jitter {} µrad",
+            format::speed(s.speed_mps, units),
+            format::significant(s.shutter_s),
+            format::significant(s.jitter_urad)
         ),
-        (
-            "Motion",
-            format!(
-                "{}, exposure {} s, jitter {} µrad",
-                format::speed(s.speed_mps, units),
-                format::significant(s.shutter_s),
-                format::significant(s.jitter_urad)
-            ),
-        ),
-    ]
+    ));
+    rows
 }
 
 /// The survey's figures as a table.
