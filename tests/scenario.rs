@@ -110,8 +110,6 @@ const NULLABLE_KEYS: &[&str] = &[
     "sunrise",
     "sunset",
     "max_speed_mps",
-    // Null when the inputs lie inside GIQE 5's range (url-and-report.md).
-    "niirs_note",
 ];
 
 /// serde_json writes a non-finite f64 as null, so a null anywhere else is a NaN or an infinity.
