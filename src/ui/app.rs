@@ -2,11 +2,12 @@
 
 use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::RawScenario;
-use crate::core::formats::qr::{qr_svg, QrSvg};
+use crate::core::formats::qr::QrSvg;
 use crate::core::presets::demo;
 use crate::core::words::chart;
 use crate::core::words::format;
 use crate::core::words::notes;
+use crate::ui::aside;
 use crate::ui::browser;
 use crate::ui::components::cautions::Cautions;
 use crate::ui::components::chart::LimitsChart;
@@ -34,13 +35,13 @@ fn initial_raw() -> RawScenario {
 const SETTLE_MS: u32 = 250;
 
 /// What is drawn once typing pauses rather than on every keystroke: the QR code (the costliest
-/// drawing of a keystroke) and the printed sheet (hidden on screen), for one scenario.
+/// drawing of a keystroke), the printed sheet (hidden on screen) and the panels out of view, for
+/// one scenario.
 #[derive(Clone, PartialEq)]
 struct Settled {
     state: Rc<State>,
     chart: Rc<chart::Chart>,
     link: AttrValue,
-    qr: Rc<Option<QrSvg>>,
 }
 
 impl Settled {
@@ -49,7 +50,6 @@ impl Settled {
             state: state.clone(),
             chart: chart.clone(),
             link: link.clone(),
-            qr: Rc::new(qr_svg(link)),
         }
     }
 }
@@ -78,13 +78,30 @@ pub fn app() -> Html {
 
     let snapshot: Rc<State> = Rc::new((*state).clone());
 
+    // The sun of a time and place is placed by the second module; the plan waits for it.
+    {
+        let dispatch = dispatch.clone();
+        use_effect_with(snapshot.plan.light.pending, move |pending| {
+            if let Some((unix_s, place)) = *pending {
+                aside::sun(unix_s, place, move |answer| {
+                    dispatch.emit(Action::Sun {
+                        unix_s,
+                        place,
+                        position: answer.unwrap_or(None),
+                    })
+                });
+            }
+        });
+    }
+
     // The chart is drawn on screen and on the printed sheet: compute it once per scenario, reusing
     // the last chart's samples when only the position along the axis moved.
     let last_chart = use_mut_ref(|| None::<(Rc<Plan>, Rc<chart::Chart>)>);
     let chart = {
         let plan = snapshot.plan.clone();
         let last_chart = last_chart.clone();
-        use_memo(state.raw.clone(), move |_| {
+        // The plan follows the text and the sun.
+        use_memo((state.raw.clone(), snapshot.plan.light.sun), move |_| {
             let r = &plan.report;
             let crossings: Vec<f64> = r.envelope_changes.iter().map(|c| c.position_m).collect();
             // The need is on the target's plane; the chart draws limits in the plane normal to the view.
@@ -116,8 +133,8 @@ pub fn app() -> Html {
     {
         let settled = settled.clone();
         let latest = latest.clone();
-        use_effect_with(link.clone(), move |link| {
-            let timer = (settled.link != *link).then(|| {
+        use_effect_with((*snapshot).clone(), move |now| {
+            let timer = (*settled.state != *now).then(|| {
                 let settled = settled.clone();
                 gloo::timers::callback::Timeout::new(SETTLE_MS, move || settle(&settled, &latest))
             });
@@ -136,9 +153,9 @@ pub fn app() -> Html {
     }
     let on_print = {
         let settled = settled.clone();
-        let link = link.clone();
+        let now = snapshot.clone();
         Callback::from(move |_: ()| {
-            if settled.link == link {
+            if *settled.state == *now {
                 browser::print();
             } else {
                 // Draw the current sheet and code first; print once the page shows them.
@@ -147,7 +164,18 @@ pub fn app() -> Html {
             }
         })
     };
-    let qr = settled.qr.clone();
+    // The QR code of the settled link, drawn by the second module.
+    let drawn_qr = use_state(|| (AttrValue::default(), Rc::new(None::<QrSvg>)));
+    {
+        let drawn_qr = drawn_qr.clone();
+        use_effect_with(settled.link.clone(), move |link| {
+            let link = link.clone();
+            aside::qr(&link.clone(), move |qr| drawn_qr.set((link, Rc::new(qr))));
+        });
+    }
+    let qr_ready = drawn_qr.0 == settled.link;
+    let qr = if qr_ready { drawn_qr.1.clone() } else { Rc::new(None) };
+    let caught_up = *settled.state == *snapshot && snapshot.plan.light.pending.is_none() && qr_ready;
 
     // Panels out of view show the settled scenario: a keystroke draws what a person can see, and
     // the rest follow once typing pauses, or at once when scrolled into view.
@@ -177,7 +205,7 @@ pub fn app() -> Html {
             <span>{ if name.is_empty() { "Untitled scenario".to_string() } else { name } }</span>
             <a href="#results">{ format!("{} governs: {}", notes::limit_title(report.governing), format::length(report.limit_m, units)) }</a>
         </div>
-        <main class="layout" data-settled={(settled.link == link).to_string()}>
+        <main class="layout" data-settled={caught_up.to_string()}>
             <ScenarioForm state={snapshot.clone()} dispatch={dispatch.clone()} />
             <div class="outputs">
                 if snapshot.plan.scenario.name.ends_with("(demo)") {

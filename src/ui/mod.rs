@@ -5,10 +5,12 @@
 //! browser refuses them.
 
 pub mod app;
+pub mod aside;
 mod browser;
 mod components;
 pub mod export;
 pub mod state;
+mod worker;
 
 use wasm_bindgen::JsCast;
 

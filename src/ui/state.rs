@@ -2,21 +2,43 @@
 
 use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::RawScenario;
+use crate::core::physics::light::sun::{Place, SunPosition, Sunlight};
 use std::rc::Rc;
 use yew::Reducible;
 
-/// What the page shows: the text as typed (kept even when invalid) and the plan computed from it.
+/// What the page shows: the text as typed (kept even when invalid), the plan computed from it, and
+/// the suns the second module has placed for it.
 #[derive(Clone, Debug)]
 pub struct State {
     pub raw: RawScenario,
     pub plan: Rc<Plan>,
+    pub suns: Rc<Suns>,
+}
+
+/// The suns the page's second module has placed (`ui::aside`), newest last: the page plans with
+/// these, and the light waits for the sun of any other instant or place (`Light::pending`).
+#[derive(Clone, Debug, Default, PartialEq)]
+pub struct Suns(Vec<(f64, Place, Option<SunPosition>)>);
+
+/// The suns kept: a person moves the time back and forth over a few values.
+const SUNS_KEPT: usize = 64;
+
+impl Sunlight for Suns {
+    fn sun_at(&self, unix_s: f64, place: Place) -> Option<Option<SunPosition>> {
+        self.0
+            .iter()
+            .rev()
+            .find(|(t, p, _)| *t == unix_s && *p == place)
+            .map(|(_, _, sun)| *sun)
+    }
 }
 
 impl State {
     /// The state for a raw scenario.
     pub fn new(raw: RawScenario) -> State {
-        let plan = Rc::new(Plan::from_raw(&raw));
-        State { raw, plan }
+        let suns = Rc::new(Suns::default());
+        let plan = Rc::new(Plan::from_raw_with(&raw, &*suns));
+        State { raw, plan, suns }
     }
 
     /// The raw text of `key`, or empty.
@@ -56,6 +78,12 @@ pub enum Action {
     SetAndRemove(Vec<(String, String)>, Vec<String>),
     /// Replace the whole scenario (a demo, a saved scenario, an opened link).
     Load(RawScenario),
+    /// The sun at an instant and place, as the second module placed it.
+    Sun {
+        unix_s: f64,
+        place: Place,
+        position: Option<SunPosition>,
+    },
 }
 
 impl Action {
@@ -70,6 +98,7 @@ impl Reducible for State {
 
     fn reduce(self: Rc<Self>, action: Action) -> Rc<Self> {
         let mut raw = self.raw.clone();
+        let mut suns = self.suns.clone();
         match action {
             Action::Set(pairs) => {
                 for (k, v) in pairs {
@@ -86,12 +115,34 @@ impl Reducible for State {
                 }
             }
             Action::Load(new_raw) => raw = new_raw,
+            Action::Sun {
+                unix_s,
+                place,
+                position,
+            } => {
+                let mut told = (*self.suns).clone();
+                if told.0.len() >= SUNS_KEPT {
+                    told.0.remove(0);
+                }
+                told.0.push((unix_s, place, position));
+                suns = Rc::new(told);
+                // A sun for an instant the plan no longer waits for is only kept.
+                if self.plan.light.pending != Some((unix_s, place)) {
+                    return Rc::new(State {
+                        raw,
+                        plan: self.plan.clone(),
+                        suns,
+                    });
+                }
+                let plan = Rc::new(Plan::from_raw_after_with(&raw, &self.plan, &*suns));
+                return Rc::new(State { raw, plan, suns });
+            }
         }
         if raw == self.raw {
             return self;
         }
         // A keystroke along the solve axis keeps the sweep and its solves.
-        let plan = Rc::new(Plan::from_raw_after(&raw, &self.plan));
-        Rc::new(State { raw, plan })
+        let plan = Rc::new(Plan::from_raw_after_with(&raw, &self.plan, &*suns));
+        Rc::new(State { raw, plan, suns })
     }
 }

@@ -76,11 +76,14 @@ export async function start() {
 
 /**
  * Waits until the page has settled on its scenario: panels out of view follow the scenario once
- * typing pauses (and the QR code and the printed sheet always do), so what a test reads of them
- * after a change is read once the page says so.
+ * typing pauses (and the QR code and the printed sheet always do), and the parts the second
+ * module draws follow a moment later, so what a test reads of them after a change is read once the
+ * page says so.
  */
 export async function settled(page) {
   await page.waitForSelector('main[data-settled="true"]', { timeout: 15000 });
+  // Parts drawn by the second module (the light panel's) say when they show an earlier scenario.
+  await page.waitForFunction(() => document.querySelector('main[data-settled="true"]') && !document.querySelector('main [data-settled="false"]'), null, { timeout: 15000 });
 }
 
 /** Path of the report example; scripts/test builds it once before the tests. */

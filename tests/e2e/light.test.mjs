@@ -5,7 +5,7 @@
 // best settings are applied only when asked, and the device's clock fills the date.
 import { after, before, test } from 'node:test';
 import assert from 'node:assert/strict';
-import { artifact, displayed, mismatches, report, start } from './helpers.mjs';
+import { artifact, displayed, mismatches, report, settled as caughtUp, start } from './helpers.mjs';
 
 const LIT = 'v=1&name=Spring+pasture+check&sw=13.2&sh=8.8&cols=5472&rows=3648&focal=8.8&fnum=4&h=80&gd=0&speed=10'
   + '&need=0.05&aw=400&al=600&lat=-37.8&lon=145.2&when=2026-09-21T09%3A30%2B10%3A00&expmode=auto&fmin=2.8';
@@ -17,6 +17,7 @@ after(() => app?.close());
 /** Waits until the day and the best settings shown belong to the scenario on screen. */
 async function settled(page) {
   await page.waitForSelector('#light .extras[data-settled="true"]', { timeout: 15000 });
+  await caughtUp(page);
 }
 
 test('a lit scenario shows the sun, light, exposure, day and best settings as the report does', async () => {
@@ -45,6 +46,7 @@ test('a bad date and time is named beside its field, kept as typed, and the rest
   assert.match(message, /^Date and time '2026-02-30T10:00\+01:00' is not a local date and time with its UTC offset, such as 2026-06-21T10:30\+02:00/);
   assert.equal(await page.inputValue('#in-when'), '2026-02-30T10:00+01:00');
   assert.ok(await page.locator('[data-key="limit_m"]').count() > 0, 'the limits are still shown');
+  await caughtUp(page);
   assert.equal(await page.locator('[data-key="sun_elevation_deg"]').count(), 0, 'no sun without a valid time');
   assert.deepEqual(page.errors, []);
   await page.context().close();
@@ -59,6 +61,7 @@ test('the best settings are applied only when asked, and then the page follows t
   await page.click('#apply-best');
   await page.waitForFunction((b) => Math.abs(Number(document.querySelector('#in-fnum').value) - b) < 0.01, best);
   assert.equal(await page.inputValue('#expmode'), 'auto');
+  await caughtUp(page);
   const query = new URL(page.url()).search.slice(1);
   const rep = report(query);
   const shownExposure = Number(await page.locator('#light [data-key="exposure_s"]').getAttribute('data-si'));

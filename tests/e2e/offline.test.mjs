@@ -159,13 +159,16 @@ test('loaded once, the app opens and computes with the server stopped; without t
   await page.context().close();
 });
 
-test('after one visit the on-demand export module works with the server stopped', async () => {
+test('after one visit both on-demand modules work with the server stopped: the export, the sun and the QR code', async () => {
   const site = await servedCopy();
-  const page = await openPage(app.browser, `${site.origin}/?${SURVEY}&lat=-36.85&lon=146.29`, { contextOptions: { acceptDownloads: true } });
+  const page = await openPage(app.browser, `${site.origin}/?${SURVEY}&lat=-36.85&lon=146.29&when=2026-11-02T10%3A30%2B11%3A00`, { contextOptions: { acceptDownloads: true } });
   await precached(page, site.dir);
   await stopServer(site.server);
   await page.reload();
   await page.waitForSelector(RENDERED, { timeout: 15000 });
+  // The second module places the sun and draws the QR code.
+  await page.waitForSelector('#light [data-key="sun_elevation_deg"]', { timeout: 15000 });
+  await page.waitForSelector('.qr-code path', { timeout: 15000 });
   const [download] = await Promise.all([page.waitForEvent('download'), page.click('#survey .export button')]);
   assert.equal(JSON.parse(readFileSync(await download.path(), 'utf8')).type, 'FeatureCollection');
   assert.deepEqual(page.errors, []);

@@ -6,8 +6,9 @@ use crate::core::contract::report::{BestReport, Computed, DayReport, Report, Swe
 use crate::core::contract::scenario::{FieldError, RawScenario, Scenario};
 use crate::core::formats::geojson::{export_check, ExportProblem};
 use crate::core::physics::engine::{evaluate, Evaluation, Setup};
+use crate::core::physics::light::sun::{Spa, Sunlight};
 use crate::core::planning::light::{best_settings, lit, plan_day, DaySample, Light};
-use crate::core::planning::solve::Sweep;
+use crate::core::planning::solve::{Axis, Sweep};
 use crate::core::planning::survey::{layout, plan_survey, Layout, SurveyInputs};
 
 /// A scenario with everything computed from it, for the page.
@@ -33,13 +34,18 @@ pub struct Plan {
 impl Plan {
     /// Validates raw text and computes the whole plan; never panics.
     pub fn from_raw(raw: &RawScenario) -> Plan {
+        Plan::from_raw_with(raw, &Spa)
+    }
+
+    /// [`Plan::from_raw`] with the sun from `sunlight` (the page's: told by its second module).
+    pub fn from_raw_with(raw: &RawScenario, sunlight: &dyn Sunlight) -> Plan {
         let (scenario, errors) = Scenario::from_raw(raw);
-        Plan::build(scenario, errors)
+        Plan::build_after(scenario, errors, None, sunlight)
     }
 
     /// Computes the whole plan for a validated scenario.
     pub fn build(scenario: Scenario, errors: Vec<FieldError>) -> Plan {
-        Plan::build_after(scenario, errors, None)
+        Plan::build_after(scenario, errors, None, &Spa)
     }
 
     /// Validates raw text and computes the plan, keeping what `previous` computed that the change
@@ -47,12 +53,22 @@ impl Plan {
     /// distance) keeps the sweep, and with the same need and target its solves. The result equals
     /// [`Plan::from_raw`]'s (tests/plan.rs).
     pub fn from_raw_after(raw: &RawScenario, previous: &Plan) -> Plan {
-        let (scenario, errors) = Scenario::from_raw(raw);
-        Plan::build_after(scenario, errors, Some(previous))
+        Plan::from_raw_after_with(raw, previous, &Spa)
     }
 
-    fn build_after(scenario: Scenario, errors: Vec<FieldError>, previous: Option<&Plan>) -> Plan {
-        let light = scenario.light();
+    /// [`Plan::from_raw_after`] with the sun from `sunlight`.
+    pub fn from_raw_after_with(raw: &RawScenario, previous: &Plan, sunlight: &dyn Sunlight) -> Plan {
+        let (scenario, errors) = Scenario::from_raw(raw);
+        Plan::build_after(scenario, errors, Some(previous), sunlight)
+    }
+
+    fn build_after(
+        scenario: Scenario,
+        errors: Vec<FieldError>,
+        previous: Option<&Plan>,
+        sunlight: &dyn Sunlight,
+    ) -> Plan {
+        let light = scenario.light_with(sunlight);
         let setup = lit(&scenario.unlit_setup(), &light);
         let evaluation = evaluate(&setup);
         let axis = scenario.solve_axis();
@@ -112,15 +128,22 @@ pub struct Extras {
 }
 
 impl Plan {
-    /// The day at the place and the best settings under this light.
+    /// The day at the place and the best settings under this light (the sun by NREL's SPA).
     pub fn extras(&self) -> Extras {
-        let s = &self.scenario;
-        let inputs = s.light_inputs();
-        let need = s.need();
-        let day = plan_day(&inputs, &self.setup, &need);
-        let widest = s.widest_f_number.unwrap_or(s.f_number);
-        let best =
-            best_settings(&inputs, &self.setup, widest, &need, self.sweep.axis).map(|b| BestReport::new(&b, s.units));
+        Extras::of(&self.scenario, &self.setup, self.sweep.axis)
+    }
+}
+
+impl Extras {
+    /// The day at the place and the best settings for `scenario`, lit as `setup` (its
+    /// [`Scenario::setup`]), solving along `axis`: what the page's second module works out from a
+    /// query alone, without the rest of the plan.
+    pub fn of(scenario: &Scenario, setup: &Setup, axis: Axis) -> Extras {
+        let inputs = scenario.light_inputs();
+        let need = scenario.need();
+        let day = plan_day(&inputs, setup, &need);
+        let widest = scenario.widest_f_number.unwrap_or(scenario.f_number);
+        let best = best_settings(&inputs, setup, widest, &need, axis).map(|b| BestReport::new(&b, scenario.units));
         Extras {
             day_samples: day.as_ref().map(|d| d.samples.clone()).unwrap_or_default(),
             day: day.as_ref().map(DayReport::new),

@@ -15,9 +15,10 @@ use crate::core::physics::geometry::Geometry;
 use crate::core::physics::light::daylight::Sky;
 use crate::core::physics::light::exposure::Sensor;
 use crate::core::physics::light::sun::{CivilTime, Direction};
+use crate::core::physics::light::sun::{Spa, Sunlight};
 use crate::core::physics::target::CdModel;
 use crate::core::physics::turbulence::Profile;
-use crate::core::planning::light::{lit, plan_light, Light, LightInputs};
+use crate::core::planning::light::{lit, plan_light, Light, LightInputs, SunFix};
 use crate::core::planning::solve::{Axis, Need, TargetPlane};
 use crate::core::planning::survey::{SurveyInputs, SurveySettings};
 use crate::core::words::units::Units;
@@ -304,8 +305,13 @@ impl Scenario {
         }
     }
 
-    /// What the light depends on.
+    /// What the light depends on, the sun placed by NREL's SPA.
     pub fn light_inputs(&self) -> LightInputs {
+        self.light_inputs_with(&Spa)
+    }
+
+    /// What the light depends on, the sun from `sunlight`.
+    pub fn light_inputs_with(&self, sunlight: &dyn Sunlight) -> LightInputs {
         let view = match self.offset {
             Offset::GroundDistance(g) if g <= 0.0 => Direction {
                 azimuth_deg: 0.0,
@@ -332,12 +338,19 @@ impl Scenario {
             typed_snr: self.snr,
             assumed_snr: DEFAULT_SNR,
             view,
+            sun: SunFix::Unplaced,
         }
+        .with_sun(sunlight)
     }
 
-    /// The light: the sun, the illuminance, the exposure time used and the SNR.
+    /// The light: the sun (by NREL's SPA), the illuminance, the exposure time used and the SNR.
     pub fn light(&self) -> Light {
-        plan_light(&self.light_inputs())
+        self.light_with(&Spa)
+    }
+
+    /// The light with the sun from `sunlight`.
+    pub fn light_with(&self, sunlight: &dyn Sunlight) -> Light {
+        plan_light(&self.light_inputs_with(sunlight))
     }
 
     /// The engine's setup with the typed exposure time and the assumed or typed SNR.

@@ -8,7 +8,7 @@ use crate::core::physics::engine::{evaluate, quality, Evaluation, Limit, Setup};
 use crate::core::physics::light::daylight::{daylight, Sky};
 use crate::core::physics::light::exposure::{contrast_signal, ev100, metered_exposure_s, ContrastSignal, Sensor, Shot};
 use crate::core::physics::light::sun::{
-    glint_angle_deg, sun_day, sun_position, CivilTime, Direction, Place, SunPosition,
+    glint_angle_deg, sun_day, CivilTime, Direction, Place, Spa, SunPosition, Sunlight,
 };
 use crate::core::planning::solve::{Axis, Need, Reach, Sweep};
 use serde::Serialize;
@@ -64,6 +64,20 @@ pub struct LightInputs {
     pub assumed_snr: f64,
     /// The direction the camera looks (for glare): straight down, or tilted along an azimuth.
     pub view: Direction,
+    /// The sun at `when` and the place, once it is known ([`LightInputs::with_sun`]).
+    pub sun: SunFix,
+}
+
+/// What is known of the sun for a plan.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub enum SunFix {
+    /// No time and place to place it.
+    Unplaced,
+    /// A time and place are given, and the sun is being worked out elsewhere (the page's second
+    /// module): the light is planned without it until it is told.
+    Pending { unix_s: f64, place: Place },
+    /// Worked out: the position, or `None` for a time SPA cannot take.
+    Placed(Option<SunPosition>),
 }
 
 /// Where the illuminance comes from.
@@ -92,6 +106,8 @@ pub enum SnrSource {
 pub enum LightNote {
     /// A time was given without a place, or a place without a time: the sun is not placed.
     SunNeedsTimeAndPlace,
+    /// The sun is being worked out (the page's second module): the light follows in a moment.
+    SunPending,
     /// The sun is below the horizon: the daylight model gives no light (twilight is not modelled).
     SunDown { elevation_deg: f64 },
     /// The sun is low: long shadows.
@@ -129,6 +145,8 @@ pub struct Light {
     pub snr: f64,
     pub snr_source: SnrSource,
     pub notes: Vec<LightNote>,
+    /// The instant and place whose sun the light waits for (the page asks and plans again).
+    pub pending: Option<(f64, Place)>,
 }
 
 /// The SNR range the imaging chain accepts (the contract's `snr` range).
@@ -152,13 +170,26 @@ impl LightInputs {
         self.wavelength_nm > REFLECTIVE_BAND_MAX_NM
     }
 
-    /// The same inputs at another instant (for the day's samples).
+    /// The same inputs at another instant (for the day's samples), the sun placed by SPA.
     fn at(&self, unix_s: f64) -> LightInputs {
         let offset = self.when.map_or(0, |w| w.offset_minutes);
         LightInputs {
             when: CivilTime::from_unix_s(unix_s, offset),
             ..*self
         }
+        .with_sun(&Spa)
+    }
+
+    /// The same inputs with the sun at `when` and the place from `sunlight`.
+    pub fn with_sun(self, sunlight: &dyn Sunlight) -> LightInputs {
+        let sun = match self.instant_and_place() {
+            None => SunFix::Unplaced,
+            Some((unix_s, place)) => match sunlight.sun_at(unix_s, place) {
+                Some(position) => SunFix::Placed(position),
+                None => SunFix::Pending { unix_s, place },
+            },
+        };
+        LightInputs { sun, ..self }
     }
 }
 
@@ -169,7 +200,14 @@ pub fn plan_light(inputs: &LightInputs) -> Light {
     if placed.is_none() && (inputs.when.is_some() != inputs.latitude_deg.is_some()) && inputs.lux.is_none() {
         notes.push(LightNote::SunNeedsTimeAndPlace);
     }
-    let sun = placed.and_then(|(unix_s, place)| sun_position(unix_s, place));
+    let (sun, pending) = match inputs.sun {
+        SunFix::Placed(sun) => (sun, None),
+        SunFix::Pending { unix_s, place } => {
+            notes.push(LightNote::SunPending);
+            (None, Some((unix_s, place)))
+        }
+        SunFix::Unplaced => (None, None),
+    };
     let day_of_year = inputs.when.and_then(|w| w.day_of_year()).unwrap_or(172);
     let (source, illuminance_lx) = if inputs.thermal() {
         notes.push(LightNote::Thermal);
@@ -251,6 +289,7 @@ pub fn plan_light(inputs: &LightInputs) -> Light {
         snr,
         snr_source,
         notes,
+        pending,
     }
 }
 

@@ -49,7 +49,7 @@ pub fn snr_source(source: SnrSource) -> &'static str {
 /// A light note as the report gives it.
 #[derive(Clone, Debug, PartialEq, Serialize)]
 pub struct LightNoteWords {
-    /// `place`, `night`, `low-sun`, `glare`, `no-light`, `overexposed`, `longest`, `clipped` or
+    /// `place`, `placing`, `night`, `low-sun`, `glare`, `no-light`, `overexposed`, `longest`, `clipped` or
     /// `thermal`.
     pub code: &'static str,
     pub text: String,
@@ -61,6 +61,10 @@ pub fn light_note(note: &LightNote) -> LightNoteWords {
         LightNote::SunNeedsTimeAndPlace => (
             "place",
             "The sun needs both a date and time and a place (latitude and longitude).".to_string(),
+        ),
+        LightNote::SunPending => (
+            "placing",
+            "Placing the sun for this date, time and place; the light follows in a moment.".to_string(),
         ),
         LightNote::SunDown { elevation_deg } => (
             "night",

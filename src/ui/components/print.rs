@@ -122,21 +122,61 @@ fn input_rows(plan: &Plan) -> Vec<(&'static str, String)> {
     rows
 }
 
-/// The survey's figures as a table.
-fn survey_table(plan: &Plan) -> Html {
+/// The survey's figures, one row each.
+fn survey_rows(plan: &Plan) -> Vec<(&'static str, String)> {
     let s = &plan.scenario;
     let survey = &plan.report.survey;
     let units = s.units;
     let len = |m: f64| format::length(m, units);
+    let or_dash = |v: Option<String>| v.unwrap_or_else(|| "—".into());
+    let count = |n: Option<u64>| or_dash(n.map(|n| n.to_string()));
+    let speed = |v: Option<f64>| or_dash(v.map(|v| format::speed(v, units)));
+    vec![
+        (
+            "Footprint",
+            format!("{} × {}", len(survey.footprint_across_m), len(survey.footprint_along_m)),
+        ),
+        (
+            "Overlaps",
+            format!(
+                "{} % front, {} % side",
+                format::significant(s.survey.front_overlap_pct),
+                format::significant(s.survey.side_overlap_pct)
+            ),
+        ),
+        (
+            "Base, line spacing",
+            format!("{}, {}", len(survey.base_m), len(survey.line_spacing_m)),
+        ),
+        ("Trigger interval", or_dash(survey.trigger_s.map(format::duration))),
+        (
+            "Lines, photos",
+            format!("{}, {}", count(survey.lines), count(survey.photos)),
+        ),
+        (
+            "Flight time, batteries",
+            format!(
+                "{}, {}",
+                or_dash(survey.flight_time_s.map(format::duration)),
+                count(survey.batteries)
+            ),
+        ),
+        (
+            "Speed limits",
+            format!(
+                "blur {}, interval {}",
+                speed(survey.max_speed_blur_mps),
+                speed(survey.max_speed_trigger_mps)
+            ),
+        ),
+    ]
+}
+
+/// Labelled rows as a table.
+fn rows_table(rows: &[(&'static str, String)]) -> Html {
     html! {
         <table class="print-table">
-            <tr><th>{ "Footprint" }</th><td>{ format!("{} × {}", len(survey.footprint_across_m), len(survey.footprint_along_m)) }</td></tr>
-            <tr><th>{ "Overlaps" }</th><td>{ format!("{} % front, {} % side", format::significant(s.survey.front_overlap_pct), format::significant(s.survey.side_overlap_pct)) }</td></tr>
-            <tr><th>{ "Base, line spacing" }</th><td>{ format!("{}, {}", len(survey.base_m), len(survey.line_spacing_m)) }</td></tr>
-            <tr><th>{ "Trigger interval" }</th><td>{ survey.trigger_s.map(format::duration).unwrap_or_else(|| "—".into()) }</td></tr>
-            <tr><th>{ "Lines, photos" }</th><td>{ format!("{}, {}", survey.lines.map(|n| n.to_string()).unwrap_or_else(|| "—".into()), survey.photos.map(|n| n.to_string()).unwrap_or_else(|| "—".into())) }</td></tr>
-            <tr><th>{ "Flight time, batteries" }</th><td>{ format!("{}, {}", survey.flight_time_s.map(format::duration).unwrap_or_else(|| "—".into()), survey.batteries.map(|n| n.to_string()).unwrap_or_else(|| "—".into())) }</td></tr>
-            <tr><th>{ "Speed limits" }</th><td>{ format!("blur {}, interval {}", survey.max_speed_blur_mps.map(|v| format::speed(v, units)).unwrap_or_else(|| "—".into()), survey.max_speed_trigger_mps.map(|v| format::speed(v, units)).unwrap_or_else(|| "—".into())) }</td></tr>
+            { for rows.iter().map(|(k, v)| html! { <tr><th>{ *k }</th><td>{ v.clone() }</td></tr> }) }
         </table>
     }
 }
@@ -184,9 +224,7 @@ pub fn print_sheet(props: &PrintProps) -> Html {
             <div class="print-grid">
                 <div>
                     <h2>{ "Inputs" }</h2>
-                    <table class="print-table">
-                        { for inputs.iter().map(|(k, v)| html! { <tr><th>{ *k }</th><td>{ v.clone() }</td></tr> }) }
-                    </table>
+                    { rows_table(&inputs) }
                     <h2>{ "Resolution" }</h2>
                     <table class="print-table">
                         { for Limit::ALL.iter().map(|&l| html! {
@@ -212,7 +250,7 @@ pub fn print_sheet(props: &PrintProps) -> Html {
             <div class="print-grid">
                 <div>
                     <h2>{ "Survey" }</h2>
-                    { survey_table(plan) }
+                    { rows_table(&survey_rows(plan)) }
                 </div>
                 <div class="print-diagram">{ diagram_html }</div>
             </div>

@@ -243,6 +243,26 @@ pub struct SunPosition {
     pub azimuth_deg: f64,
 }
 
+/// Where a plan's sun comes from. The sun's position is a function of the instant and the place
+/// alone, so it can be worked out elsewhere and told: natively and in the on-demand modules it is
+/// NREL's SPA at once ([`Spa`]); the page asks its second module and keeps the answers, so that
+/// SPA's tables stay out of its first load.
+pub trait Sunlight {
+    /// The sun at `unix_s` from `place`: `Some` with SPA's answer (itself `None` for a time or place
+    /// SPA cannot take), or `None` while it is not known here yet.
+    fn sun_at(&self, unix_s: f64, place: Place) -> Option<Option<SunPosition>>;
+}
+
+/// The sun by NREL's SPA, worked out at once ([`sun_position`]).
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq)]
+pub struct Spa;
+
+impl Sunlight for Spa {
+    fn sun_at(&self, unix_s: f64, place: Place) -> Option<Option<SunPosition>> {
+        Some(sun_position(unix_s, place))
+    }
+}
+
 /// The sun at `unix_s` seen from `place` (NREL SPA), apparent (refracted by the standard
 /// atmosphere), with ΔT from [`delta_t_s`]; `None` for an invalid place or a time outside SPA's
 /// years (−2000 to 6000).
