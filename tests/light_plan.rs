@@ -256,3 +256,23 @@ fn the_best_settings_are_no_worse_than_their_neighbours() {
         assert!(best.why.len() >= 2, "{:?}", best.why);
     }
 }
+
+/// The turbulence profile suggested for the hour follows the sun (issue 12): a daytime profile with
+/// the sun up at `when`, a night-time one with it down; the scenario's `air` is left as chosen.
+#[test]
+fn the_suggested_turbulence_profile_follows_the_sun() {
+    for (time, expected) in [("12:00", "slc-day"), ("23:30", "slc-night"), ("05:00", "slc-night")] {
+        let query = format!("v=1&{CAMERA}&lat=-37.8&lon=145.2&when=2026-09-21T{time}%2B10%3A00&air=slc-night");
+        let r = report(&query);
+        let day = r.day.as_ref().expect("a day for a time and place");
+        assert_eq!(day.air_suggested, expected, "{time}");
+        // The sun's own side of the horizon, by NREL's SPA through the report.
+        let up = r.sun_elevation_deg.expect("the sun placed") > 0.0;
+        assert_eq!(up, expected == "slc-day", "{time}");
+        assert_eq!(
+            Scenario::from_query(&query).0.air.key(),
+            "slc-night",
+            "the choice is kept"
+        );
+    }
+}

@@ -13,7 +13,7 @@
 
 use crate::core::contract::plan::Extras;
 use crate::core::contract::report::{BestReport, DayReport};
-use crate::core::contract::scenario::Scenario;
+use crate::core::contract::scenario::{AirModel, Scenario};
 use crate::core::formats::qr::{qr_svg, QrSvg};
 use crate::core::physics::light::sun::{sun_position, Place, SunPosition};
 use crate::core::planning::light::{DaySample, DAY_STEP_S};
@@ -126,8 +126,13 @@ fn esc(text: &str) -> String {
 
 /// A figure tagged with its report field and SI value, as the page tags every figure.
 fn figure(key: &str, si: f64, text: &str) -> String {
+    figure_word(key, &si.to_string(), text)
+}
+
+/// A word (or a number's text) tagged with its report field.
+fn figure_word(key: &str, word: &str, text: &str) -> String {
     format!(
-        r#"<span class="value" data-key="{key}" data-si="{si}">{}</span>"#,
+        r#"<span class="value" data-key="{key}" data-si="{word}">{}</span>"#,
         esc(text)
     )
 }
@@ -364,6 +369,22 @@ fn extras_html(query: &str) -> String {
                 at(&day.sunset)
             )),
             timeline(day, &extras.day_samples, &scenario)
+        );
+        let (suggested, title, why) = if day.air_suggested == AirModel::SlcDay.key() {
+            (AirModel::SlcDay, "SLC day", "the sun is up")
+        } else {
+            (AirModel::SlcNight, "SLC night", "the sun is down")
+        };
+        let chosen = scenario.air;
+        let differs = matches!(chosen, AirModel::SlcDay | AirModel::SlcNight) && chosen != suggested;
+        out += &format!(
+            "<p class=\"air-hint\">Air turbulence at this hour: the {} profile suits it ({why}){}</p>",
+            figure_word("day.air_suggested", day.air_suggested, title),
+            if differs {
+                "; this scenario uses the other SLC profile, which is yours to keep or change under Air."
+            } else {
+                "."
+            }
         );
     }
     if let Some(best) = &extras.best {

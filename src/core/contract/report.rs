@@ -3,7 +3,7 @@
 //! shows the same values, each tagged with its field name.
 
 use crate::core::contract::plan::Plan;
-use crate::core::contract::scenario::{FieldError, RawScenario, Scenario, CONTRACT_VERSION};
+use crate::core::contract::scenario::{AirModel, FieldError, RawScenario, Scenario, CONTRACT_VERSION};
 use crate::core::physics::engine::{quality, Evaluation, Limit, Setup};
 use crate::core::physics::optics;
 use crate::core::physics::target::{people_level, task_chances, CdModel, PeopleLevel, TaskChance};
@@ -155,6 +155,9 @@ pub struct DayReport {
     pub windows: Vec<String>,
     /// Their total length, hours.
     pub good_hours: f64,
+    /// The turbulence profile that suits the hour of `when`: `slc-day` with the sun up, `slc-night`
+    /// with it down (a suggestion; the scenario's `air` is used as chosen).
+    pub air_suggested: &'static str,
 }
 
 impl DayReport {
@@ -172,6 +175,11 @@ impl DayReport {
                 .map(|&(a, b)| format!("{}–{}", at(a), at(b)))
                 .collect(),
             good_hours: day.windows.iter().map(|&(a, b)| (b - a) / 3600.0).sum(),
+            air_suggested: if day.sun_up {
+                AirModel::SlcDay.key()
+            } else {
+                AirModel::SlcNight.key()
+            },
         }
     }
 }

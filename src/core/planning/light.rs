@@ -320,6 +320,9 @@ pub struct Day {
     pub sunset_unix_s: Option<f64>,
     pub noon_unix_s: f64,
     pub noon_elevation_deg: f64,
+    /// Whether the sun is above the horizon at `when` (the turbulence profile that suits the hour
+    /// follows it: a daytime or a night-time one).
+    pub sun_up: bool,
     pub samples: Vec<DaySample>,
     /// Spans of consecutive good samples, (start, end) Unix seconds.
     pub windows: Vec<(f64, f64)>,
@@ -372,6 +375,7 @@ pub fn plan_day(inputs: &LightInputs, setup: &Setup, need: &Need) -> Option<Day>
         sunset_unix_s: day.sunset_unix_s,
         noon_unix_s: day.noon_unix_s,
         noon_elevation_deg: day.noon_elevation_deg,
+        sun_up: plan_light(inputs).sun.is_some_and(|s| s.elevation_deg > 0.0),
         samples,
         windows,
     })
