@@ -160,7 +160,7 @@ pub fn app() -> Html {
             } else {
                 // Draw the current sheet and code first; print once the page shows them.
                 settle(&settled, &latest);
-                gloo::timers::callback::Timeout::new(50, browser::print).forget();
+                browser::print_when_settled();
             }
         })
     };

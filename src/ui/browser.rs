@@ -260,6 +260,24 @@ pub fn print() {
     }
 }
 
+/// Opens the print dialog once the page has caught up with its scenario (`main[data-settled]`:
+/// the sheet, its QR code from the second module), looking every 50 ms for up to two seconds, then
+/// prints in any case.
+pub fn print_when_settled() {
+    fn attempt(left: u32) {
+        let settled = web_sys::window()
+            .and_then(|w| w.document())
+            .and_then(|d| d.query_selector("main[data-settled=\"true\"]").ok().flatten())
+            .is_some();
+        if settled || left == 0 {
+            print();
+        } else {
+            gloo::timers::callback::Timeout::new(50, move || attempt(left - 1)).forget();
+        }
+    }
+    gloo::timers::callback::Timeout::new(50, || attempt(40)).forget();
+}
+
 /// Registers the service worker that keeps the app usable offline.
 pub fn register_service_worker() {
     let Some(window) = web_sys::window() else { return };

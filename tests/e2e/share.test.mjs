@@ -6,7 +6,7 @@
 import { after, before, test } from 'node:test';
 import assert from 'node:assert/strict';
 import { createHash } from 'node:crypto';
-import { report, start, typeInto } from './helpers.mjs';
+import { report, settled, start, typeInto } from './helpers.mjs';
 import { RENDERED, openPage } from './offline-helpers.mjs';
 
 const SURVEY = 'v=1&name=Share+me&sw=13.2&sh=8.8&cols=5472&rows=3648&focal=8.8&fnum=4&wl=550&h=80&gd=0'
@@ -136,6 +136,8 @@ test('the share button appears only with a share sheet, and hands it the link an
 
 test('the QR code is drawn in the page and changes with the scenario', async () => {
   const page = await app.open(SURVEY);
+  // The code is drawn by the second module a moment after the first figures show.
+  await settled(page);
   const first = await qrPaths(page);
   assert.ok(first.screen && first.screen.length > 100, 'no QR code drawn');
   assert.equal(first.print, first.screen, 'the printed QR code differs from the screen one');
