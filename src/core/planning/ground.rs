@@ -5,7 +5,7 @@
 //! finite figures in SI, or a typed reason (`Err`) with the figures that explain it; nothing
 //! here writes a sentence, and nothing panics.
 
-use super::survey::{flies_forward, OverlapSide, SurveyPlan, MAX_PHOTOS};
+use crate::core::planning::survey::{flies_forward, OverlapSide, SurveyPlan, MAX_PHOTOS};
 
 /// The front overlap a mapping orthomosaic needs at least, percent: the lower bound of the
 /// mapping class in `survey::overlap_guidance` (common practice for drone mapping: 75–80 %).
