@@ -715,6 +715,22 @@ proptest! {
     }
 
     #[test]
+    fn the_edge_of_view_is_where_the_horizons_meet(
+        h in 0.0f64..50_000.0,
+        ht in 0.0f64..500.0,
+        k in 0.5f64..2.0,
+        beyond in 1e-7f64..1e-2,
+    ) {
+        // Within a hair of the limit on either side: in view just short of the sum of the two
+        // horizon arcs, out of view just past it.
+        let earth = Earth::with_refraction(k).unwrap();
+        let exact = earth.max_visible_ground_m(h, ht).unwrap();
+        let at = |g: f64| earth.sight(&SightInputs { camera_height_m: h, ground_distance_m: g, target_height_m: ht }).unwrap();
+        prop_assert!(at(exact * (1.0 - beyond)).visible);
+        prop_assert!(!at(exact * (1.0 + beyond)).visible || exact == 0.0);
+    }
+
+    #[test]
     fn the_look_angle_round_trips(h in 1.0f64..40_000.0, ht in 0.0f64..1.0, u in 0.0f64..0.999) {
         let earth = Earth::STANDARD;
         let grazing = earth.horizon_look_angle_rad(h).unwrap();
