@@ -3,6 +3,7 @@
 //! Imports nothing else of the core.
 
 pub mod chain;
+pub mod earth;
 pub mod engine;
 pub mod geometry;
 pub mod light;
