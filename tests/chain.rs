@@ -193,6 +193,7 @@ fn a_turbulence_limited_camera_follows_frieds_mtf() {
     setup.geometry = Geometry {
         height_m: 8.0,
         ground_distance_m: 3000.0,
+        ..Geometry::default()
     };
     setup.profile = Profile::PowerLaw {
         cn2_at_1m: 1e-13,

@@ -152,6 +152,7 @@ fn a_flat_earth_is_the_limit_of_a_large_radius() {
         let plain = Geometry {
             height_m: h,
             ground_distance_m: g,
+            ..Geometry::default()
         };
         close(s.slant_range_m, plain.slant_range_m(), 1e-7);
         close(s.look_angle_rad, plain.look_angle_rad(), 1e-7);

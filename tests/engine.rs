@@ -38,6 +38,7 @@ fn worked() -> Setup {
         geometry: Geometry {
             height_m: 300.0,
             ground_distance_m: 400.0,
+            ..Geometry::default()
         },
         profile: Profile::None,
         speed_mps: 10.0,
@@ -229,6 +230,7 @@ fn sweep_bases() -> Vec<(String, Setup)> {
                 Geometry {
                     height_m: 80.0,
                     ground_distance_m: 0.0,
+                    ..Geometry::default()
                 },
             ),
             ("tilted 60°", Geometry::tilted(100.0, 60f64.to_radians())),
@@ -237,6 +239,7 @@ fn sweep_bases() -> Vec<(String, Setup)> {
                 Geometry {
                     height_m: 8.0,
                     ground_distance_m: 1500.0,
+                    ..Geometry::default()
                 },
             ),
         ] {
@@ -304,18 +307,22 @@ fn every_figure_is_finite_at_the_edges_of_the_valid_ranges() {
         Geometry {
             height_m: 0.1,
             ground_distance_m: 0.0,
+            ..Geometry::default()
         },
         Geometry {
             height_m: 0.1,
             ground_distance_m: 100_000.0,
+            ..Geometry::default()
         },
         Geometry {
             height_m: 20_000.0,
             ground_distance_m: 0.0,
+            ..Geometry::default()
         },
         Geometry {
             height_m: 20_000.0,
             ground_distance_m: 100_000.0,
+            ..Geometry::default()
         },
         Geometry::tilted(0.1, 85f64.to_radians()),
         Geometry::tilted(20_000.0, 85f64.to_radians()),

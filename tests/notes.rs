@@ -177,7 +177,7 @@ fn words_without_units_are_complete() {
             level: PeopleLevel::Identification,
         },
     ] {
-        let text = notes::caution(caution);
+        let text = notes::caution(caution, Units::Metric);
         assert!(
             text.contains("local") || text.contains("where you work") || text.contains("indicative"),
             "{text}"
@@ -188,6 +188,18 @@ fn words_without_units_are_complete() {
     }
     let text = notes::overlap(&overlap_guidance(75.0, 65.0));
     assert!(text.starts_with("Overlap of 75 % front and 65 % side"), "{text}");
+    // Below the horizon: both distances in the chosen units, and plainly not in view.
+    let beyond = Caution::BeyondHorizon {
+        distance_m: 20_000.0,
+        horizon_m: 11_658.0,
+    };
+    let text = notes::caution(beyond, Units::Metric);
+    assert!(
+        text.contains("20 km") && text.contains("11.7 km") && text.contains("not in view"),
+        "{text}"
+    );
+    let text = notes::caution(beyond, Units::Imperial);
+    assert!(text.contains("12.4 mi") && text.contains("7.24 mi"), "{text}");
 }
 
 #[test]

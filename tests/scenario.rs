@@ -471,6 +471,7 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
         any::<bool>(),
         in_range("iso"),
         (maybe("baseiso"), maybe("fw"), maybe("rn"), maybe("fmin")),
+        (maybe("tht"), maybe("refk")),
     );
     (optics, air, survey, place, (needs, chain, light)).prop_map(
         |(
@@ -481,9 +482,11 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
             (
                 (need_gsd, plane, cdm),
                 (obsc, wfe, fill, jitter, snr),
-                (when, sky, lux, refl, auto_exposure, iso, (base_iso, fw, rn, fmin)),
+                (when, sky, lux, refl, auto_exposure, iso, (base_iso, fw, rn, fmin), (tht, refk)),
             ),
         )| Scenario {
+            target_height_m: tht,
+            earth_k: refk,
             when,
             sky,
             lux,
@@ -750,11 +753,20 @@ fn ground_distance_and_tilt_together_are_an_error() {
         errors[0].message
     );
     assert_eq!(scenario.offset, Offset::GroundDistance(50.0));
-    // Either alone is fine; tilt gives gd = h·tan(tilt).
+    // Either alone is fine; tilt gives gd = h·tan(tilt) over a flat Earth, and over the round
+    // one (radius k·R_E, k = 4/3; resolution-model §10) the arc to where the look meets the
+    // ground: by the law of sines the angle at the target from its vertical is
+    // asin((r + h)·sin θ / r), and the arc is r times its excess over θ (by hand).
     let (tilted, errors) = Scenario::from_query(&format!("{BASE}&tilt=45"));
     assert!(errors.is_empty());
     let g = tilted.geometry();
-    assert!((g.ground_distance_m - 80.0).abs() < 1e-12, "{g:?}");
+    let (r, theta) = (4.0 / 3.0 * 6_371_000.0, 45f64.to_radians());
+    let arc = r * (((r + 80.0) * theta.sin() / r).asin() - theta);
+    assert!((g.ground_distance_m - arc).abs() < 1e-9 * arc, "{g:?} vs {arc}");
+    assert!(
+        (g.ground_distance_m - 80.0).abs() < 1e-3,
+        "{g:?}: within a millimetre of flat"
+    );
 }
 
 #[test]

@@ -40,6 +40,18 @@ fn bases() -> Vec<(String, Setup)> {
     for (name, profile) in profiles {
         out.push((format!("survey drone, {name}"), Setup { profile, ..survey }));
         out.push((format!("fence mast, {name}"), Setup { profile, ..mast }));
+        // The same mast over a flat Earth (no horizon), as published flat-Earth examples take it.
+        out.push((
+            format!("fence mast over a flat Earth, {name}"),
+            Setup {
+                profile,
+                geometry: Geometry {
+                    earth_k: f64::INFINITY,
+                    ..mast.geometry
+                },
+                ..mast
+            },
+        ));
         out.push((
             format!("oblique drone 45°, {name}"),
             Setup {
@@ -84,7 +96,7 @@ fn detail(need_m: f64, plane: TargetPlane) -> Need {
 
 /// How much longer a figure normal to the view is on `plane`, at this evaluation's look angle.
 fn stretch(e: &Evaluation, plane: TargetPlane) -> f64 {
-    plane.stretch(e.look_angle_deg)
+    plane.stretch(e.incidence_deg)
 }
 
 /// The ground resolved distance in its coarser direction on `plane`, as a detail need is compared.
@@ -92,8 +104,10 @@ fn on_plane(e: &Evaluation, plane: TargetPlane) -> f64 {
     e.resolved_m * stretch(e, plane)
 }
 
+/// Met at `x`: the target in view (above the horizon) and its detail within the need.
 fn meets(sweep: &Sweep, x: f64, need: f64) -> bool {
-    on_plane(&evaluate(&sweep.setup_at(x)), plane(sweep.axis)) <= need
+    let e = evaluate(&sweep.setup_at(x));
+    e.visible && on_plane(&e, plane(sweep.axis)) <= need
 }
 
 /// Fails with `message` unless `condition` holds.
@@ -113,6 +127,17 @@ fn check_reach(sweep: &Sweep, need: f64, fine_grid: usize) -> Result<usize, Stri
     let (lo, hi) = sweep.axis.domain();
     let p = plane(sweep.axis);
     match sweep.reach(&detail(need, p)) {
+        Reach::Horizon { position_m } => {
+            ensure((lo..=hi).contains(&position_m), || {
+                format!("horizon at {position_m} outside the domain")
+            })?;
+            ensure(meets(sweep, position_m * (1.0 - STEP), need), || {
+                format!("fails just short of the horizon at {position_m}")
+            })?;
+            let beyond = evaluate(&sweep.setup_at(position_m * (1.0 + STEP)));
+            ensure(!beyond.visible, || format!("still in view just beyond {position_m}"))?;
+            Ok(0)
+        }
         Reach::UpTo { position_m, bound_by } => {
             ensure((lo..=hi).contains(&position_m), || {
                 format!("{position_m} outside the domain")
@@ -370,6 +395,7 @@ fn focal_needed_of_a_worked_example() {
         geometry: Geometry {
             height_m: 100.0,
             ground_distance_m: 0.0,
+            ..Geometry::default()
         },
         profile: Profile::None,
         speed_mps: 0.0,
@@ -466,6 +492,7 @@ fn envelope_keeps_a_brief_lead_between_two_table_points() {
         geometry: Geometry {
             height_m: 28.954783277864603,
             ground_distance_m: 386.14497345049216,
+            ..Geometry::default()
         },
         profile: Profile::HV57,
         speed_mps: 2.271532168577941,

@@ -86,6 +86,7 @@ fn constant_cn2_spherical_and_plane_wave_r0_match_the_closed_forms() {
         let path = SlantPath {
             camera_altitude_m: altitude,
             length_m: length,
+            ..SlantPath::default()
         };
         let k = wavenumber(wl);
         let sphere = (0.423 * k * k * cn2 * length * 3.0 / 8.0).powf(-3.0 / 5.0);
@@ -266,6 +267,7 @@ fn spherical_wave_r0_of_slant_and_nadir_paths_within_a_thousandth() {
             let path = SlantPath {
                 camera_altitude_m: h,
                 length_m: length,
+                ..SlantPath::default()
             };
             let k = wavenumber(550e-9);
             let reference = |weight: &dyn Fn(f64) -> f64| {
@@ -322,6 +324,7 @@ fn a_camera_looking_down_sees_a_larger_r0_than_one_looking_up() {
             let path = SlantPath {
                 camera_altitude_m: h,
                 length_m: f64::hypot(h, g),
+                ..SlantPath::default()
             };
             let down = turbulence::spherical_wave_r0(&profile, path, 550e-9).unwrap_or(f64::NAN);
             let up = turbulence::spherical_wave_r0_looking_up(&profile, path, 550e-9).unwrap_or(f64::NAN);
@@ -343,6 +346,7 @@ fn r0_scales_as_the_six_fifths_power_of_wavelength() {
     let path = SlantPath {
         camera_altitude_m: 8.0,
         length_m: 1500.0,
+        ..SlantPath::default()
     };
     for (name, profile) in PROFILES {
         let base = turbulence::spherical_wave_r0(&profile, path, 500e-9).unwrap_or(f64::NAN);
@@ -377,6 +381,7 @@ fn no_turbulence_and_degenerate_paths_give_no_r0() {
     let path = SlantPath {
         camera_altitude_m: 80.0,
         length_m: 80.0,
+        ..SlantPath::default()
     };
     assert_eq!(turbulence::spherical_wave_r0(&Profile::None, path, 550e-9), None);
     let degenerate = [
@@ -390,6 +395,7 @@ fn no_turbulence_and_degenerate_paths_give_no_r0() {
         let path = SlantPath {
             camera_altitude_m: 80.0,
             length_m: length,
+            ..SlantPath::default()
         };
         assert_eq!(
             turbulence::spherical_wave_r0(&HV57, path, wl),
@@ -441,6 +447,7 @@ fn rytov_variance_of_a_constant_cn2_path_matches_the_closed_form() {
         let path = SlantPath {
             camera_altitude_m: 8.0,
             length_m: length,
+            ..SlantPath::default()
         };
         let k = wavenumber(550e-9);
         let expected = 2.25 * 6.0 / 11.0 * cn2 * k.powf(7.0 / 6.0) * f64::powf(length, 11.0 / 6.0);
@@ -454,6 +461,7 @@ fn rytov_variance_of_a_constant_cn2_path_matches_the_closed_form() {
     let path = SlantPath {
         camera_altitude_m: 300.0,
         length_m: 2000.0,
+        ..SlantPath::default()
     };
     let k = wavenumber(1e-6);
     let reference = 2.25

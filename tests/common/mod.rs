@@ -102,6 +102,7 @@ pub fn any_setup() -> impl Strategy<Value = Setup> {
                 Geometry {
                     height_m: h,
                     ground_distance_m: gd,
+                    ..Geometry::default()
                 }
             },
             profile,

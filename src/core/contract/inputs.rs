@@ -336,6 +336,23 @@ pub const INPUTS: &[Input] = &[
         "Give either the ground distance (gd) or the tilt, not both; the ground distance is used.",
     )
     .feeds(GEOMETRY),
+    number(
+        "tht",
+        "Target height above its ground",
+        "m",
+        (0.0, 10_000.0),
+        optional!(target_height_m),
+    )
+    .imperial(FEET)
+    .feeds(GEOMETRY),
+    number(
+        "refk",
+        "Refraction factor of the Earth's radius",
+        "",
+        (0.5, 100.0),
+        optional!(earth_k),
+    )
+    .feeds(GEOMETRY),
     Input {
         key: "air",
         label: "Turbulence profile",

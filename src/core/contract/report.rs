@@ -7,7 +7,7 @@ use crate::core::contract::scenario::{AirModel, FieldError, RawScenario, Scenari
 use crate::core::physics::engine::{quality, Evaluation, Limit, Setup};
 use crate::core::physics::optics;
 use crate::core::physics::target::{people_level, task_chances, CdModel, PeopleLevel, TaskChance};
-use crate::core::physics::turbulence::{rytov_variance, SlantPath};
+use crate::core::physics::turbulence::rytov_variance;
 use crate::core::planning::cautions::{self, CautionInputs};
 use crate::core::planning::light::{BestSettings, Day, Light, LightSource, SnrSource};
 use crate::core::planning::solve::{
@@ -105,6 +105,12 @@ pub struct Report {
     /// Rytov variance of the path (plane wave); above 1 the turbulence is strong and its figures
     /// indicative.
     pub rytov: f64,
+    /// The greatest ground distance at which a target of this height is above the horizon from
+    /// this camera height, over the round Earth with refraction (the two horizon arcs).
+    pub horizon_m: Option<f64>,
+    /// Whether the target is above the horizon; when not, it is not in view and the task chances
+    /// are nil.
+    pub visible: bool,
     /// The highest level for watching people that the pixel density reaches (null below 25 px/m).
     pub people_level: Option<PeopleLevel>,
     pub cautions: Vec<CautionWords>,
@@ -308,7 +314,7 @@ impl Report {
             light,
         } = *parts;
         let need = scenario.need();
-        let plane_stretch = need.plane.stretch(e.look_angle_deg);
+        let plane_stretch = need.plane.stretch(e.incidence_deg);
         let reach = figures.reach;
         let reach_m = reach.and_then(|r| r.position_m());
         let focal = need.is_given().then(|| focal_needed(e, setup, &need));
@@ -317,16 +323,19 @@ impl Report {
             _ => None,
         };
         let detail_on_plane_m = e.resolved_m * plane_stretch;
-        let (target_cycles, target_chances) = target_figures(scenario, detail_on_plane_m);
+        let (target_cycles, mut target_chances) = target_figures(scenario, detail_on_plane_m);
+        if !e.visible {
+            // Below the horizon the target is not in view, whatever the optics could resolve.
+            for chance in &mut target_chances {
+                chance.probability = 0.0;
+            }
+        }
+        let g = setup.geometry;
+        let horizon_m = g
+            .earth()
+            .and_then(|earth| earth.max_visible_ground_m(g.height_m, g.target_height_m));
         let px_per_m = if e.gsd_m > 0.0 { 1.0 / e.gsd_m } else { 0.0 };
-        let rytov = rytov_variance(
-            &setup.profile,
-            SlantPath {
-                camera_altitude_m: setup.geometry.height_m,
-                length_m: e.slant_range_m,
-            },
-            setup.wavelength_m,
-        );
+        let rytov = rytov_variance(&setup.profile, setup.geometry.slant_path(), setup.wavelength_m);
         let people = people_level(px_per_m);
         let sensor = scenario.sensor();
         let image = quality(setup, e);
@@ -335,6 +344,9 @@ impl Report {
             airborne: sweep.axis == Axis::Height,
             px_per_m,
             rytov,
+            beyond_horizon: horizon_m
+                .filter(|_| !e.visible)
+                .map(|h| (setup.geometry.ground_distance_m, h)),
         });
         Report {
             v: CONTRACT_VERSION,
@@ -403,7 +415,9 @@ impl Report {
             px_per_m,
             people_level: people,
             rytov,
-            cautions: notes::cautions(&cautions),
+            horizon_m,
+            visible: e.visible,
+            cautions: notes::cautions(&cautions, scenario.units),
             sun_elevation_deg: light.sun.map(|s| s.elevation_deg),
             sun_azimuth_deg: light.sun.map(|s| s.azimuth_deg),
             illuminance_lx: light.illuminance_lx,

@@ -10,6 +10,7 @@
 
 use crate::core::contract::inputs::INPUTS;
 use crate::core::physics::chain::{ChainInputs, DEFAULT_SNR};
+use crate::core::physics::earth::STANDARD_REFRACTION_K;
 use crate::core::physics::engine::Setup;
 use crate::core::physics::geometry::Geometry;
 use crate::core::physics::light::daylight::Sky;
@@ -151,6 +152,10 @@ pub struct Scenario {
     pub turn_rate_deg_s: f64,
     /// The target's own speed across the view (`tspeed`).
     pub target_speed_mps: f64,
+    /// The target's height above its ground, m (`tht`; 0 when not given).
+    pub target_height_m: Option<f64>,
+    /// The refraction factor of the Earth's radius (`refk`; 4/3, standard air, when not given).
+    pub earth_k: Option<f64>,
     pub shutter_s: f64,
     /// Central obscuration ratio of the lens (`obsc`).
     pub obscuration: f64,
@@ -274,14 +279,18 @@ impl Scenario {
         }
     }
 
-    /// The viewing geometry in metres.
+    /// The viewing geometry in metres, over the round Earth.
     pub fn geometry(&self) -> Geometry {
+        let target_height_m = self.target_height_m.unwrap_or(0.0);
+        let earth_k = self.earth_k.unwrap_or(STANDARD_REFRACTION_K);
         match self.offset {
             Offset::GroundDistance(g) => Geometry {
                 height_m: self.height_m,
                 ground_distance_m: g,
+                target_height_m,
+                earth_k,
             },
-            Offset::Tilt(t) => Geometry::tilted(self.height_m, t.to_radians()),
+            Offset::Tilt(t) => Geometry::tilted_over(self.height_m, t.to_radians(), target_height_m, earth_k),
         }
     }
 

@@ -7,7 +7,7 @@
 use crate::core::physics::chain::{self, ChainInputs, Direction, Quality, SystemMtf};
 use crate::core::physics::geometry::Geometry;
 use crate::core::physics::optics;
-use crate::core::physics::turbulence::{self, Exposure, Profile, SlantPath};
+use crate::core::physics::turbulence::{self, Exposure, Profile};
 use serde::Serialize;
 
 /// Everything the engine needs, in SI units.
@@ -111,6 +111,12 @@ pub struct Evaluation {
     pub aperture_m: f64,
     pub slant_range_m: f64,
     pub look_angle_deg: f64,
+    /// The line of sight's angle from the target's vertical (90° − its elevation there): the look
+    /// angle on a flat Earth, larger by the angle of Earth between camera and target on a round
+    /// one. Ground-plane figures stretch by its secant.
+    pub incidence_deg: f64,
+    /// Whether the target is above the horizon.
+    pub visible: bool,
     /// Normal-plane GSD p·R/f (GIQE 5.0 §2.3).
     pub gsd_m: f64,
     /// Ground-plane GSD along the look direction, GSD/cos θ (GIQE 5.0).
@@ -160,14 +166,7 @@ fn finite(x: f64) -> f64 {
 
 /// Evaluates the four limits for a setup. Never panics; every figure is finite.
 pub fn evaluate(setup: &Setup) -> Evaluation {
-    let r0 = turbulence::spherical_wave_r0(
-        &setup.profile,
-        SlantPath {
-            camera_altitude_m: setup.geometry.height_m,
-            length_m: finite(setup.geometry.slant_range_m()),
-        },
-        setup.wavelength_m,
-    );
+    let r0 = turbulence::spherical_wave_r0(&setup.profile, setup.geometry.slant_path(), setup.wavelength_m);
     evaluate_through(setup, r0)
 }
 
@@ -180,14 +179,18 @@ pub fn evaluate_through(setup: &Setup, r0: Option<f64>) -> Evaluation {
     let range = finite(geometry.slant_range_m());
     let look = geometry.look_angle_rad();
     let look = if look.is_finite() { look } else { 0.0 };
-    let elevation = (std::f64::consts::FRAC_PI_2 - look).max(1e-6);
+    let elevation = geometry.elevation_rad();
+    let elevation = if elevation.is_finite() {
+        elevation.max(1e-6)
+    } else {
+        1e-6
+    };
 
     let gsd = if setup.focal_m > 0.0 {
         finite(pitch * range / setup.focal_m)
     } else {
         0.0
     };
-    let cos_look = look.cos().max(1e-6);
     let sin_elev = elevation.sin().max(1e-6);
 
     let rayleigh = finite(optics::rayleigh_angle(setup.wavelength_m, aperture));
@@ -250,8 +253,10 @@ pub fn evaluate_through(setup: &Setup, r0: Option<f64>) -> Evaluation {
         aperture_m: aperture,
         slant_range_m: range,
         look_angle_deg: look.to_degrees(),
+        incidence_deg: (std::f64::consts::FRAC_PI_2 - elevation).to_degrees(),
+        visible: geometry.visible(),
         gsd_m: gsd,
-        gsd_ground_m: finite(gsd / cos_look),
+        gsd_ground_m: finite(gsd / sin_elev),
         gsd_geomean_m: finite(gsd / sin_elev.sqrt()),
         gsd_weighted_m: finite(gsd / sin_elev.powf(0.25)),
         rayleigh_rad: rayleigh,

@@ -19,6 +19,9 @@ pub enum Caution {
     Scintillation { rytov: f64 },
     /// At `px_per_m` on the target a person could be recognised (or identified, by `level`).
     Privacy { px_per_m: f64, level: PeopleLevel },
+    /// The target, `distance_m` away along the ground, lies below the horizon, which for these
+    /// heights is `horizon_m` away: it is not in view.
+    BeyondHorizon { distance_m: f64, horizon_m: f64 },
 }
 
 impl Caution {
@@ -29,6 +32,7 @@ impl Caution {
             Caution::Height { .. } => "height",
             Caution::Privacy { .. } => "privacy",
             Caution::Scintillation { .. } => "scintillation",
+            Caution::BeyondHorizon { .. } => "horizon",
         }
     }
 }
@@ -43,11 +47,16 @@ pub struct CautionInputs {
     pub px_per_m: f64,
     /// The path's Rytov variance.
     pub rytov: f64,
+    /// When the target is below the horizon: its ground distance and the horizon's.
+    pub beyond_horizon: Option<(f64, f64)>,
 }
 
 /// The cautions for a plan; the general one is always present.
 pub fn cautions(inputs: CautionInputs) -> Vec<Caution> {
     let mut out = vec![Caution::General];
+    if let Some((distance_m, horizon_m)) = inputs.beyond_horizon {
+        out.push(Caution::BeyondHorizon { distance_m, horizon_m });
+    }
     if inputs.height_m > COMMON_HEIGHT_CAP_M {
         out.push(Caution::Height {
             airborne: inputs.airborne,

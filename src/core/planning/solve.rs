@@ -100,10 +100,13 @@ impl Sweep {
     /// The setup at position `x` along the axis.
     pub fn setup_at(&self, x: f64) -> Setup {
         let geometry = match self.axis {
-            Axis::Height => Geometry::tilted(x, self.look_angle_rad),
+            Axis::Height => {
+                let g = self.base.geometry;
+                Geometry::tilted_over(x, self.look_angle_rad, g.target_height_m, g.earth_k)
+            }
             Axis::GroundDistance => Geometry {
-                height_m: self.base.geometry.height_m,
                 ground_distance_m: x,
+                ..self.base.geometry
             },
         };
         self.base.with_geometry(geometry)
@@ -180,9 +183,13 @@ impl Sweep {
             Some(i) => {
                 let x = self.refine(self.table[i].0, self.table[i + 1].0, |e| need.slack(e));
                 let beyond = evaluate(&self.setup_at(x * (1.0 + 1e-6)));
-                Reach::UpTo {
-                    position_m: x,
-                    bound_by: need.failing_limit(&beyond, false),
+                if beyond.visible {
+                    Reach::UpTo {
+                        position_m: x,
+                        bound_by: need.failing_limit(&beyond, false),
+                    }
+                } else {
+                    Reach::Horizon { position_m: x }
                 }
             }
         }
@@ -281,17 +288,18 @@ pub struct Need {
 impl Need {
     /// Whether an evaluation meets every part of the need.
     pub fn meets(&self, e: &Evaluation) -> bool {
-        let k = self.plane.stretch(e.look_angle_deg);
-        self.detail_m.is_none_or(|d| e.resolved_m * k <= d) && self.gsd_m.is_none_or(|g| e.gsd_m * k <= g)
+        let k = self.plane.stretch(e.incidence_deg);
+        // A target below the horizon is not in view, whatever the optics could resolve.
+        e.visible && self.detail_m.is_none_or(|d| e.resolved_m * k <= d) && self.gsd_m.is_none_or(|g| e.gsd_m * k <= g)
     }
 
     /// How far inside the need an evaluation lies, as the least relative margin of its parts:
     /// not negative exactly when [`Need::meets`] holds, and continuous along a sweep.
     fn slack(&self, e: &Evaluation) -> f64 {
-        let k = self.plane.stretch(e.look_angle_deg);
+        let k = self.plane.stretch(e.incidence_deg);
         let part = |want: Option<f64>, have: f64| want.map_or(f64::INFINITY, |w| (w - have * k) / w);
         let slack = part(self.detail_m, e.resolved_m).min(part(self.gsd_m, e.gsd_m));
-        if slack.is_nan() {
+        if slack.is_nan() || !e.visible {
             -1.0
         } else {
             slack
@@ -302,7 +310,7 @@ impl Need {
     /// largest part of the GRD), or at the near end of a sweep (`nearest`) motion when it alone is
     /// too large, as it does not shrink close in; for the GSD, sampling.
     fn failing_limit(&self, e: &Evaluation, nearest: bool) -> Limit {
-        let k = self.plane.stretch(e.look_angle_deg);
+        let k = self.plane.stretch(e.incidence_deg);
         match self.detail_m {
             Some(d) if nearest && e.limits.motion * k > d => Limit::Motion,
             Some(d) if e.resolved_m * k > d => e.governing,
@@ -313,7 +321,7 @@ impl Need {
     /// The finest figure on the target's plane that an evaluation gives for the failing part of
     /// the need: the GRD for a detail, the GSD for a GSD.
     fn best_figure(&self, e: &Evaluation) -> f64 {
-        let k = self.plane.stretch(e.look_angle_deg);
+        let k = self.plane.stretch(e.incidence_deg);
         match self.detail_m {
             Some(d) if e.resolved_m * k > d || self.gsd_m.is_none() => e.resolved_m * k,
             _ => e.gsd_m * k,
@@ -332,6 +340,8 @@ impl Need {
 pub enum Reach {
     /// The need is met up to `position_m`; beyond it `bound_by` exceeds the need.
     UpTo { position_m: f64, bound_by: Limit },
+    /// The need is met up to `position_m`, where the target sinks below the horizon.
+    Horizon { position_m: f64 },
     /// The need is met over the whole domain.
     Everywhere { up_to_m: f64 },
     /// No position meets the need; `forbidden_by` is what stands in the way even close in.
@@ -342,7 +352,7 @@ impl Reach {
     /// The bounded position, if any.
     pub fn position_m(&self) -> Option<f64> {
         match self {
-            Reach::UpTo { position_m, .. } => Some(*position_m),
+            Reach::UpTo { position_m, .. } | Reach::Horizon { position_m } => Some(*position_m),
             _ => None,
         }
     }
@@ -400,7 +410,7 @@ const FOCAL_POINTS: usize = 16;
 /// of focal lengths and bisection find the shortest that meets it, and a lens long enough to
 /// leave only the air and the motion tells when none does. The longest of the two is needed.
 pub fn focal_needed(evaluation: &Evaluation, setup: &Setup, need: &Need) -> FocalNeed {
-    let k = need.plane.stretch(evaluation.look_angle_deg);
+    let k = need.plane.stretch(evaluation.incidence_deg);
     let range = evaluation.slant_range_m * k;
     let mut best: Option<(f64, Limit)> = None;
     if let Some(d) = need.detail_m {

@@ -227,6 +227,10 @@ pub fn reach(reach: &Reach, axis: Axis, need_text: &str, units: Units) -> String
             length(position_m, units),
             lower_first(limit_title(bound_by))
         ),
+        Reach::Horizon { position_m } => format!(
+            "{need_text} is met up to a {noun} of {}, where the target sinks below the horizon.",
+            length(position_m, units)
+        ),
         Reach::Everywhere { up_to_m } => {
             format!("{need_text} is met at every {noun} up to {}.", length(up_to_m, units))
         }
@@ -240,8 +244,15 @@ pub fn reach(reach: &Reach, axis: Axis, need_text: &str, units: Units) -> String
 }
 
 /// A caution in plain words.
-pub fn caution(caution: Caution) -> String {
+pub fn caution(caution: Caution, units: Units) -> String {
     match caution {
+        Caution::BeyondHorizon { distance_m, horizon_m } => format!(
+            "The target, {} away, is below the horizon, which for these heights lies {} away with \
+             standard refraction: it is not in view, so nothing of it can be seen from here. Raise the \
+             camera, or come closer.",
+            length(distance_m, units),
+            length(horizon_m, units)
+        ),
         Caution::General => "This planner estimates image detail; it does not tell you that a flight or a camera \
                              placement is allowed. Rules differ between countries and change: check the rules \
                              where you work, and follow licensed practice."
@@ -426,12 +437,12 @@ pub struct CautionWords {
 }
 
 /// The cautions in words.
-pub fn cautions(cautions: &[Caution]) -> Vec<CautionWords> {
+pub fn cautions(cautions: &[Caution], units: Units) -> Vec<CautionWords> {
     cautions
         .iter()
         .map(|&c| CautionWords {
             code: c.code(),
-            text: caution(c),
+            text: caution(c, units),
         })
         .collect()
 }

@@ -49,7 +49,9 @@ pub fn solve_panel(props: &SolveProps) -> Html {
     let need_block = match (need_text, report.reach, report.focal_needed) {
         (Some(need_text), Some(reach), Some(focal)) => {
             let reach_html = match reach {
-                Reach::UpTo { position_m, .. } => value("reach_m", position_m, length(position_m)),
+                Reach::UpTo { position_m, .. } | Reach::Horizon { position_m } => {
+                    value("reach_m", position_m, length(position_m))
+                }
                 _ => html! {},
             };
             let focal_text = match focal {
@@ -63,9 +65,9 @@ pub fn solve_panel(props: &SolveProps) -> Html {
                 },
             };
             html! { <>
-                <p class="reach" data-reach={match reach { Reach::UpTo{..} => "up_to", Reach::Everywhere{..} => "everywhere", Reach::Nowhere{..} => "nowhere" }}>
+                <p class="reach" data-reach={match reach { Reach::UpTo{..} => "up_to", Reach::Horizon{..} => "horizon", Reach::Everywhere{..} => "everywhere", Reach::Nowhere{..} => "nowhere" }}>
                     <strong>{ notes::reach(&reach, axis, &need_text, units) }</strong>
-                    if matches!(reach, Reach::UpTo { .. }) { <span class="sr-only">{ " Greatest: " }{ reach_html }</span> }
+                    if reach.position_m().is_some() { <span class="sr-only">{ " Greatest: " }{ reach_html }</span> }
                 </p>
                 <p>{ focal_text }</p>
             </> }

@@ -20,7 +20,9 @@ pub struct TargetProps {
 /// `key` is the figure's path in the report (`task_ranges.0.p50_m`).
 fn range_cell(reach: &Reach, key: String, units: Units) -> Html {
     match *reach {
-        Reach::UpTo { position_m, .. } => value(key, position_m, format::length(position_m, units)),
+        Reach::UpTo { position_m, .. } | Reach::Horizon { position_m } => {
+            value(key, position_m, format::length(position_m, units))
+        }
         Reach::Everywhere { up_to_m } => html! { { format!("beyond {}", format::length(up_to_m, units)) } },
         Reach::Nowhere { .. } => html! { { "not reached" } },
     }
