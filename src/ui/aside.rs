@@ -20,6 +20,7 @@ use crate::core::planning::light::{DaySample, DAY_STEP_S};
 use crate::core::words::format::{self, format_number};
 use crate::core::words::light::{exposure_time, light_note, light_source, snr_source};
 use crate::core::words::notes;
+use crate::ui::markup::esc;
 use crate::ui::worker;
 use js_sys::Array;
 
@@ -107,21 +108,6 @@ pub fn draw(drawing: Drawing, query: &str, done: impl FnOnce(Result<String, Stri
     worker::ask(LOADER, &[kind.into(), query.into()], move |answer| {
         done(answer.map(|a| a.get(0).as_string().unwrap_or_default()))
     });
-}
-
-/// Text made safe for HTML.
-fn esc(text: &str) -> String {
-    let mut out = String::with_capacity(text.len());
-    for c in text.chars() {
-        match c {
-            '&' => out.push_str("&amp;"),
-            '<' => out.push_str("&lt;"),
-            '>' => out.push_str("&gt;"),
-            '"' => out.push_str("&quot;"),
-            _ => out.push(c),
-        }
-    }
-    out
 }
 
 /// A figure tagged with its report field and SI value, as the page tags every figure.

@@ -12,6 +12,7 @@ use crate::core::words::notes;
 use crate::ui::browser;
 use crate::ui::components::chart::chart_svg;
 use crate::ui::components::survey::diagram;
+use crate::ui::markup::{fixed, Markup};
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;
@@ -172,28 +173,102 @@ fn survey_rows(plan: &Plan) -> Vec<(&'static str, String)> {
     ]
 }
 
-/// Labelled rows as a table.
-fn rows_table(rows: &[(&'static str, String)]) -> Html {
+/// The resolution's rows: the four limits, the governing one marked, then all of them together and
+/// the predicted NIIRS; and the class of each row.
+fn resolution_rows(plan: &Plan) -> (Vec<(&'static str, String)>, Vec<Option<&'static str>>) {
+    let r = &plan.report;
+    let len = |m: f64| format::length(m, plan.scenario.units);
+    let mut rows = Vec::new();
+    let mut classes = Vec::new();
+    for &l in Limit::ALL.iter() {
+        let governs = l == r.governing;
+        rows.push((
+            notes::limit_title(l),
+            format!(
+                "{}{}",
+                len(plan.evaluation.limits.get(l)),
+                if governs { " — governs" } else { "" }
+            ),
+        ));
+        classes.push(governs.then_some("governs"));
+    }
+    rows.push((
+        "All together (GRD)",
+        if r.grd_along_m > r.grd_across_m * 1.0005 {
+            format!("{}; along the motion {}", len(r.grd_m), len(r.grd_along_m))
+        } else {
+            len(r.grd_m)
+        },
+    ));
+    classes.push(Some("combined"));
+    rows.push((
+        "Predicted NIIRS (GIQE 5)",
+        format!(
+            "{:.1}{}",
+            r.niirs,
+            if r.niirs_note.is_some() { " (indicative)" } else { "" }
+        ),
+    ));
+    (rows, classes)
+}
+
+/// Labelled rows as a table; `classes` gives the class of each row it names. The rows stay yew
+/// elements: HTML parsing would put them in a `tbody` that the page's own rows do not have.
+fn rows_table(rows: &[(&'static str, String)], classes: &[Option<&'static str>]) -> Html {
     html! {
         <table class="print-table">
-            { for rows.iter().map(|(k, v)| html! { <tr><th>{ *k }</th><td>{ v.clone() }</td></tr> }) }
+            { for rows.iter().enumerate().map(|(i, (k, v))| html! {
+                <tr class={classes!(classes.get(i).copied().flatten())}><th>{ *k }</th><td>{ v.clone() }</td></tr>
+            }) }
         </table>
     }
 }
 
-/// The printed plan.
+/// The sheet's head: title, the scenario's name, the date printed and the QR code of its link.
+fn head(name: &str, date: &str, qr: Option<&QrSvg>) -> Html {
+    let mut m = Markup::default();
+    m.tag("<header class=\"print-head\"><div><h1>Flight plan — Sharpfield</h1><p class=\"print-name\">")
+        .text(if name.is_empty() { "Untitled scenario" } else { name })
+        .tag("</p><p>Printed ")
+        .text(date)
+        .tag(". Values are estimates; check them in the field.</p></div>");
+    if let Some(qr) = qr {
+        let size = qr.size.to_string();
+        m.tag("<svg viewBox=\"0 0 ")
+            .tag(&size)
+            .tag(" ")
+            .tag(&size)
+            .tag("\" shape-rendering=\"crispEdges\" class=\"print-qr\"><rect width=\"")
+            .tag(&size)
+            .tag("\" height=\"")
+            .tag(&size)
+            .tag("\" class=\"qr-light\"></rect><path d=\"")
+            .text(&qr.path)
+            .tag("\" class=\"qr-dark\"></path></svg>");
+    }
+    m.tag("</header>");
+    m.html()
+}
+
+/// The fields a person fills in by hand.
+const SIGN_OFF: &str = "<h2>Sign-off</h2><div class=\"signoff\">\
+    <p>Pilot / operator<span class=\"blank\"></span></p>\
+    <p>Date and time<span class=\"blank\"></span></p>\
+    <p>Site, airspace and permissions checked<span class=\"blank\"></span></p>\
+    <p>People nearby informed<span class=\"blank\"></span></p>\
+    <p>Signature<span class=\"blank\"></span></p></div>";
+
+/// The printed plan. Its text is written as HTML (`ui::markup`), which costs far less code than
+/// yew elements; the chart and the survey's drawing are the screen's own, and the tables stay yew
+/// elements (see `rows_table`).
 #[function_component(PrintSheet)]
 pub fn print_sheet(props: &PrintProps) -> Html {
     let plan = &props.state.plan;
     let s = &plan.scenario;
     let r = &plan.report;
     let units = s.units;
-    let len = |m: f64| format::length(m, units);
     // The local date: the UTC date of `now_iso` is a day off for much of the day away from UTC.
     let date = browser::local_date();
-    let c = &props.chart;
-    let qr = &props.qr;
-    let inputs = input_rows(plan);
     let reach = match (notes::need_text(&s.need(), units), r.reach) {
         (Some(need_text), Some(reach)) => notes::reach(&reach, plan.sweep.axis, &need_text, units),
         _ => match props.state.error("need") {
@@ -206,67 +281,49 @@ pub fn print_sheet(props: &PrintProps) -> Html {
         .as_ref()
         .map(|l| diagram(l, units, "print"))
         .unwrap_or_default();
+    let (resolution, classes) = resolution_rows(plan);
+    let mut middle = Markup::default();
+    middle
+        .tag("<p>")
+        .text(&format!(
+            "{} governs at {}. {}",
+            notes::limit_title(r.governing),
+            format::length(r.limit_m, units),
+            r.advice
+        ))
+        .tag("</p><p>")
+        .text(&reach)
+        .tag("</p>");
+    let mut end = Markup::default();
+    end.tag("<h2>Cautions</h2><ul class=\"print-cautions\">");
+    for c in &r.cautions {
+        end.tag("<li>").text(&c.text).tag("</li>");
+    }
+    for n in &r.light_notes {
+        end.tag("<li>").text(&n.text).tag("</li>");
+    }
+    end.tag("</ul>").tag(SIGN_OFF);
     html! {
         <section class="print-sheet" aria-hidden="true">
-            <header class="print-head">
-                <div>
-                    <h1>{ "Flight plan — Sharpfield" }</h1>
-                    <p class="print-name">{ if s.name.is_empty() { "Untitled scenario".to_string() } else { s.name.clone() } }</p>
-                    <p>{ format!("Printed {date}. Values are estimates; check them in the field.") }</p>
-                </div>
-                if let Some(qr) = &**qr {
-                    <svg class="print-qr" viewBox={format!("0 0 {0} {0}", qr.size)} shape-rendering="crispEdges">
-                        <rect width={qr.size.to_string()} height={qr.size.to_string()} class="qr-light" />
-                        <path d={qr.path.clone()} class="qr-dark" />
-                    </svg>
-                }
-            </header>
+            { head(&s.name, &date, props.qr.as_ref().as_ref()) }
             <div class="print-grid">
                 <div>
-                    <h2>{ "Inputs" }</h2>
-                    { rows_table(&inputs) }
-                    <h2>{ "Resolution" }</h2>
-                    <table class="print-table">
-                        { for Limit::ALL.iter().map(|&l| html! {
-                            <tr class={classes!((l == r.governing).then_some("governs"))}>
-                                <th>{ notes::limit_title(l) }</th>
-                                <td>{ len(plan.evaluation.limits.get(l)) }{ if l == r.governing { " — governs" } else { "" } }</td>
-                            </tr>
-                        }) }
-                        <tr class="combined">
-                            <th>{ "All together (GRD)" }</th>
-                            <td>{ if r.grd_along_m > r.grd_across_m * 1.0005 { format!("{}; along the motion {}", len(r.grd_m), len(r.grd_along_m)) } else { len(r.grd_m) } }</td>
-                        </tr>
-                        <tr>
-                            <th>{ "Predicted NIIRS (GIQE 5)" }</th>
-                            <td>{ format!("{:.1}{}", r.niirs, if r.niirs_note.is_some() { " (indicative)" } else { "" }) }</td>
-                        </tr>
-                    </table>
+                    { fixed("<h2>Inputs</h2>") }
+                    { rows_table(&input_rows(plan), &[]) }
+                    { fixed("<h2>Resolution</h2>") }
+                    { rows_table(&resolution, &classes) }
                 </div>
-                <div>{ chart_svg(c, "The four limits") }</div>
+                <div>{ chart_svg(&props.chart, "The four limits") }</div>
             </div>
-            <p>{ format!("{} governs at {}. {}", notes::limit_title(r.governing), len(r.limit_m), r.advice) }</p>
-            <p>{ reach }</p>
+            { middle.html() }
             <div class="print-grid">
                 <div>
-                    <h2>{ "Survey" }</h2>
-                    { rows_table(&survey_rows(plan)) }
+                    { fixed("<h2>Survey</h2>") }
+                    { rows_table(&survey_rows(plan), &[]) }
                 </div>
                 <div class="print-diagram">{ diagram_html }</div>
             </div>
-            <h2>{ "Cautions" }</h2>
-            <ul class="print-cautions">
-                { for r.cautions.iter().map(|c| html! { <li>{ c.text.clone() }</li> }) }
-                { for r.light_notes.iter().map(|n| html! { <li>{ n.text.clone() }</li> }) }
-            </ul>
-            <h2>{ "Sign-off" }</h2>
-            <div class="signoff">
-                <p>{ "Pilot / operator" }<span class="blank"></span></p>
-                <p>{ "Date and time" }<span class="blank"></span></p>
-                <p>{ "Site, airspace and permissions checked" }<span class="blank"></span></p>
-                <p>{ "People nearby informed" }<span class="blank"></span></p>
-                <p>{ "Signature" }<span class="blank"></span></p>
-            </div>
+            { end.html() }
         </section>
     }
 }
