@@ -18,7 +18,7 @@ const BASES: [&str; 4] = [
 ];
 
 /// Changes a person makes one at a time: along the axis (kept), and everything else (recomputed).
-const CHANGES: [(&str, &str); 12] = [
+const CHANGES: [(&str, &str); 14] = [
     ("h", "81"),
     ("h", "120"),
     ("gd", "1600"),
@@ -31,6 +31,8 @@ const CHANGES: [(&str, &str); 12] = [
     ("snr", "10"),
     ("air", "none"),
     ("h", "-3"),
+    ("tht", "3"),
+    ("refk", "1"),
 ];
 
 fn raw(query: &str) -> RawScenario {

@@ -297,7 +297,7 @@ pub const INPUTS: &[Input] = &[
     number("wl", "Wavelength", "nm", (200.0, 20_000.0), plain!(wavelength_nm))
         .or(550.0)
         .feeds(&["diffraction_m", "r0_m", "turbulence_m", "q"]),
-    number("h", "Height above the target", "m", (0.1, 20_000.0), plain!(height_m))
+    number("h", "Height above the ground", "m", (0.1, 20_000.0), plain!(height_m))
         .or(80.0)
         .required()
         .imperial(FEET)

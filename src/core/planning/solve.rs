@@ -73,12 +73,17 @@ impl Sweep {
 
     /// Whether a sweep through `base` along `axis` would have this sweep's table: the table
     /// depends on everything but the position along the axis, so a change of the height (looking
-    /// at the same angle) or of the ground distance (from the same height) keeps it.
+    /// at the same angle) or of the ground distance (from the same height) keeps it, over the
+    /// same Earth and for the same target height.
     pub fn keeps_table_for(&self, base: &Setup, axis: Axis) -> bool {
-        let same_path = match axis {
-            Axis::Height => base.geometry.look_angle_rad().to_bits() == self.look_angle_rad.to_bits(),
-            Axis::GroundDistance => base.geometry.height_m.to_bits() == self.base.geometry.height_m.to_bits(),
-        };
+        let (g, mine) = (base.geometry, self.base.geometry);
+        let same_earth = g.target_height_m.to_bits() == mine.target_height_m.to_bits()
+            && g.earth_k.to_bits() == mine.earth_k.to_bits();
+        let same_path = same_earth
+            && match axis {
+                Axis::Height => g.look_angle_rad().to_bits() == self.look_angle_rad.to_bits(),
+                Axis::GroundDistance => g.height_m.to_bits() == mine.height_m.to_bits(),
+            };
         let rest_same = Setup {
             geometry: self.base.geometry,
             ..*base

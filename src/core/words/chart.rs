@@ -174,6 +174,18 @@ fn x_markers(
             label: "greatest".to_string(),
         });
     }
+    // Along the ground the target sinks below the horizon at a fixed distance for these heights.
+    let g = sweep.base().geometry;
+    let horizon = g
+        .earth()
+        .and_then(|earth| earth.max_visible_ground_m(g.height_m, g.target_height_m));
+    if let Some(h) = horizon.filter(|&h| sweep.axis == Axis::GroundDistance && h <= x_max) {
+        markers.push(Marker {
+            kind: "horizon",
+            at: to_x(h),
+            label: "horizon".to_string(),
+        });
+    }
     markers
 }
 

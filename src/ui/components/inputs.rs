@@ -192,9 +192,15 @@ pub fn geometry_group(props: &InputsProps) -> Html {
             <Choice id="geometry-mode" label="View" options={options(items)} selected={mode} {on_change} />
             if mode == "tilt" { { field(props, "tilt", None) } }
             if mode == "gd" { { field(props, "gd", length_hint(props, "gd")) } }
+            { field(props, "tht", Some("a roof, a mast, a person's head; 0 for the ground".to_string())) }
+            if mode != "down" { { field(props, "refk", Some("bends the view over the Earth: 4/3 for standard air, 1 for none".to_string())) } }
             <p class="derived">
                 { "Slant range " }<span data-key="slant_range_m" data-si={report.slant_range_m.to_string()}>{ format::length(report.slant_range_m, units) }</span>
                 { ", look angle " }<span data-key="look_angle_deg" data-si={report.look_angle_deg.to_string()}>{ format!("{}°", format::significant(report.look_angle_deg)) }</span>
+                if let (Some(horizon), true) = (report.horizon_m, mode != "down") {
+                    { ", horizon " }<span data-key="horizon_m" data-si={horizon.to_string()}>{ format::length(horizon, units) }</span>
+                    if !report.visible { <strong data-key="visible" data-si="false">{ ": the target is below it, not in view" }</strong> }
+                }
             </p>
         </fieldset>
     }

@@ -82,9 +82,19 @@ fn input_rows(plan: &Plan) -> Vec<(&'static str, String)> {
         (
             "Geometry",
             format!(
-                "height {}, {view}; slant range {}",
+                "height {}, {view}{}; slant range {}{}",
                 len(s.height_m),
-                len(r.slant_range_m)
+                s.target_height_m
+                    .filter(|t| *t > 0.0)
+                    .map(|t| format!(", target {} tall", len(t)))
+                    .unwrap_or_default(),
+                len(r.slant_range_m),
+                match (r.horizon_m, s.offset) {
+                    (_, Offset::GroundDistance(g)) if g <= 0.0 => String::new(),
+                    (Some(h), _) if !r.visible => format!("; horizon {}: the target is below it", len(h)),
+                    (Some(h), _) => format!("; horizon {}", len(h)),
+                    (None, _) => String::new(),
+                }
             ),
         ),
         ("Air", air_words(s.air, s.cn2_at_1m)),
