@@ -43,6 +43,14 @@ impl Markup {
         self
     }
 
+    /// Appends a figure tagged with its report field and SI value, as the page tags every figure
+    /// (`results::value` for yew elements).
+    pub fn figure(&mut self, key: &str, si: f64, text: &str) -> &mut Self {
+        self.tag(&format!(r#"<span class="value" data-key="{key}" data-si="{si}">"#))
+            .text(text)
+            .tag("</span>")
+    }
+
     /// The markup as yew nodes.
     pub fn html(self) -> Html {
         Html::from_html_unchecked(AttrValue::from(self.0))

@@ -5,7 +5,7 @@ use crate::core::physics::engine::Limit;
 use crate::core::planning::solve::{Crossing, FocalNeed, Reach};
 use crate::core::words::format;
 use crate::core::words::notes;
-use crate::ui::components::results::value;
+use crate::ui::markup::Markup;
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;
@@ -37,56 +37,92 @@ fn crossing_text(crossing: &Crossing, a: Limit, noun: &str, length: &dyn Fn(f64)
     }
 }
 
-/// The solve panel.
+/// The solve panel (written as text: `ui::markup`).
 #[function_component(SolvePanel)]
 pub fn solve_panel(props: &SolveProps) -> Html {
     let plan = &props.state.plan;
     let report = &plan.report;
     let units = plan.scenario.units;
     let axis = plan.sweep.axis;
+    let noun = notes::axis_noun(axis);
     let length = move |m: f64| format::length(m, units);
     let need_text = notes::need_text(&plan.scenario.need(), units);
-    let need_block = match (need_text, report.reach, report.focal_needed) {
+    let mut m = Markup::default();
+    match (need_text, report.reach, report.focal_needed) {
         (Some(need_text), Some(reach), Some(focal)) => {
-            let reach_html = match reach {
-                Reach::UpTo { position_m, .. } | Reach::Horizon { position_m } => {
-                    value("reach_m", position_m, length(position_m))
+            let kind = match reach {
+                Reach::UpTo { .. } => "up_to",
+                Reach::Horizon { .. } => "horizon",
+                Reach::Everywhere { .. } => "everywhere",
+                Reach::Nowhere { .. } => "nowhere",
+            };
+            m.tag(&format!(r#"<p class="reach" data-reach="{kind}"><strong>"#))
+                .text(&notes::reach(&reach, axis, &need_text, units))
+                .tag("</strong>");
+            if let Some(position_m) = reach.position_m() {
+                m.tag(r#"<span class="sr-only"> Greatest: "#)
+                    .figure("reach_m", position_m, &length(position_m))
+                    .tag("</span>");
+            }
+            m.tag("</p><p>");
+            match focal {
+                FocalNeed::AtLeast { focal_m, bound_by } => {
+                    m.text(&format!("At the current {noun} a focal length of at least "))
+                        .figure(
+                            "focal_needed_m",
+                            focal_m,
+                            &format!("{} mm", format::significant(focal_m * 1000.0)),
+                        )
+                        .text(&format!(
+                            " at f/{} meets it ({} sets it).",
+                            format::significant(plan.scenario.f_number),
+                            bound_by.key()
+                        ));
                 }
-                _ => html! {},
-            };
-            let focal_text = match focal {
-                FocalNeed::AtLeast { focal_m, bound_by } => html! { <>
-                    { format!("At the current {} a focal length of at least ", notes::axis_noun(axis)) }
-                    { value("focal_needed_m", focal_m, format!("{} mm", format::significant(focal_m * 1000.0))) }
-                    { format!(" at f/{} meets it ({} sets it).", format::significant(plan.scenario.f_number), bound_by.key()) }
-                </> },
-                FocalNeed::Impossible { forbidden_by } => html! {
-                    { format!("No lens meets it at the current {}: {} does not depend on the lens. {}", notes::axis_noun(axis), forbidden_by.key(), notes::limit_advice(forbidden_by)) }
-                },
-            };
-            html! { <>
-                <p class="reach" data-reach={match reach { Reach::UpTo{..} => "up_to", Reach::Horizon{..} => "horizon", Reach::Everywhere{..} => "everywhere", Reach::Nowhere{..} => "nowhere" }}>
-                    <strong>{ notes::reach(&reach, axis, &need_text, units) }</strong>
-                    if reach.position_m().is_some() { <span class="sr-only">{ " Greatest: " }{ reach_html }</span> }
-                </p>
-                <p>{ focal_text }</p>
-            </> }
+                FocalNeed::Impossible { forbidden_by } => {
+                    m.text(&format!(
+                        "No lens meets it at the current {noun}: {} does not depend on the lens. {}",
+                        forbidden_by.key(),
+                        notes::limit_advice(forbidden_by)
+                    ));
+                }
+            }
+            m.tag("</p>");
         }
         _ => {
-            html! { <p>{ "Enter the smallest detail or a required GSD under “What you need to see” to get the greatest height or range and the lens that would do." }</p> }
+            m.tag("<p>").text("Enter the smallest detail or a required GSD under “What you need to see” to get the greatest height or range and the lens that would do.").tag("</p>");
         }
-    };
+    }
+    m.tag(r#"<ul class="crossings"><li>"#)
+        .text(&crossing_text(
+            &report.diffraction_crossing,
+            Limit::Diffraction,
+            noun,
+            &length,
+        ))
+        .tag("</li><li>")
+        .text(&crossing_text(
+            &report.turbulence_crossing,
+            Limit::Turbulence,
+            noun,
+            &length,
+        ))
+        .tag("</li>");
+    for c in &report.envelope_changes {
+        m.tag("<li>")
+            .text(&format!(
+                "At a {noun} of {} the governing limit changes from {} to {}.",
+                length(c.position_m),
+                c.from.key(),
+                c.to.key()
+            ))
+            .tag("</li>");
+    }
+    m.tag("</ul>");
     html! {
         <section class="panel" id="solve" aria-labelledby="solve-title">
             <h2 id="solve-title">{ "How high or how far" }</h2>
-            { need_block }
-            <ul class="crossings">
-                <li>{ crossing_text(&report.diffraction_crossing, Limit::Diffraction, notes::axis_noun(axis), &length) }</li>
-                <li>{ crossing_text(&report.turbulence_crossing, Limit::Turbulence, notes::axis_noun(axis), &length) }</li>
-                { for report.envelope_changes.iter().map(|c| html! {
-                    <li>{ format!("At a {} of {} the governing limit changes from {} to {}.", notes::axis_noun(axis), length(c.position_m), c.from.key(), c.to.key()) }</li>
-                }) }
-            </ul>
+            { m.html() }
         </section>
     }
 }

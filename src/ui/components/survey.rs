@@ -5,8 +5,8 @@ use crate::core::contract::scenario::Scenario;
 use crate::core::planning::survey::Layout;
 use crate::core::words::format;
 use crate::ui::browser;
-use crate::ui::components::results::value;
 use crate::ui::export;
+use crate::ui::markup::Markup;
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;
@@ -17,20 +17,26 @@ pub struct SurveyProps {
     pub state: Rc<State>,
 }
 
-/// A count tagged with its report field.
-fn count(key: &'static str, n: Option<u64>) -> Html {
-    match n {
-        Some(n) => html! { <span class="value" data-key={key} data-si={n.to_string()}>{ n.to_string() }</span> },
-        None => html! { <span class="value missing" data-key={key} data-si="">{ "—" }</span> },
-    }
+/// A figure that may be missing, tagged with its report field; missing, a dash.
+fn maybe(m: &mut Markup, key: &str, v: Option<f64>, text: impl Fn(f64) -> String) {
+    match v {
+        Some(v) => m.figure(key, v, &text(v)),
+        None => m.tag(&format!(
+            r#"<span class="value missing" data-key="{key}" data-si="">—</span>"#
+        )),
+    };
 }
 
-/// An optional figure tagged with its report field.
-fn maybe(key: &'static str, v: Option<f64>, text: impl Fn(f64) -> String) -> Html {
-    match v {
-        Some(v) => value(key, v, text(v)),
-        None => html! { <span class="value missing" data-key={key} data-si="">{ "—" }</span> },
-    }
+/// A count that may be missing, tagged with its report field.
+fn count(m: &mut Markup, key: &str, n: Option<u64>) {
+    maybe(m, key, n.map(|n| n as f64), |n| format!("{n}"));
+}
+
+/// A labelled row of the figure list.
+fn row(m: &mut Markup, label: &str, figure: impl FnOnce(&mut Markup)) {
+    m.tag("<dt>").text(label).tag("</dt><dd>");
+    figure(m);
+    m.tag("</dd>");
 }
 
 /// The layout drawn to scale: area, flight lines with direction and order, first footprints.
@@ -123,33 +129,76 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
         (Ok(()), Some((asked, problem))) if asked == scenario => Some(problem.clone()),
         _ => None,
     };
+    let mut m = Markup::default();
+    m.tag(r#"<dl class="figures">"#);
+    row(&mut m, "Footprint of one photo", |m| {
+        m.figure("footprint_across_m", s.footprint_across_m, &len(s.footprint_across_m))
+            .text(" across × ")
+            .figure("footprint_along_m", s.footprint_along_m, &len(s.footprint_along_m))
+            .text(" along");
+    });
+    row(&mut m, "Base between photos", |m| {
+        m.figure("base_m", s.base_m, &len(s.base_m));
+    });
+    row(&mut m, "Line spacing", |m| {
+        m.figure("line_spacing_m", s.line_spacing_m, &len(s.line_spacing_m));
+    });
+    row(&mut m, "Trigger interval", |m| {
+        maybe(m, "trigger_s", s.trigger_s, format::duration)
+    });
+    row(&mut m, "Flight lines", |m| count(m, "lines", s.lines));
+    row(&mut m, "Photos per line / in total", |m| {
+        count(m, "photos_per_line", s.photos_per_line);
+        m.text(" / ");
+        count(m, "photos", s.photos);
+    });
+    row(&mut m, "Path length", |m| {
+        maybe(m, "path_length_m", s.path_length_m, len)
+    });
+    row(&mut m, "Flight time with turns", |m| {
+        maybe(m, "flight_time_s", s.flight_time_s, format::duration)
+    });
+    row(&mut m, "Batteries", |m| count(m, "batteries", s.batteries));
+    row(&mut m, "Storage", |m| {
+        maybe(m, "storage_mb", s.storage_mb, |mb| {
+            if mb >= 1000.0 {
+                format!("{} GB", format::significant(mb / 1000.0))
+            } else {
+                format!("{} MB", format::significant(mb))
+            }
+        })
+    });
+    row(&mut m, "Fastest speed within the blur budget", |m| {
+        maybe(m, "max_speed_blur_mps", s.max_speed_blur_mps, spd)
+    });
+    row(&mut m, "Fastest speed the photo interval allows", |m| {
+        maybe(m, "max_speed_trigger_mps", s.max_speed_trigger_mps, spd)
+    });
+    m.tag("</dl>");
+    if !words.speed_flags.is_empty() {
+        m.tag(r#"<ul class="flags">"#);
+        for f in &words.speed_flags {
+            m.tag(&format!(r#"<li class="flag" data-flag="{}"><strong>"#, f.code))
+                .text(&format!("Too fast ({}): ", f.code))
+                .tag("</strong>")
+                .text(&format!("{} {}", f.reason, f.change))
+                .tag("</li>");
+        }
+        m.tag("</ul>");
+    }
+    m.tag(&format!(
+        r#"<p class="guidance" data-overlap="{}">"#,
+        words.overlap_guidance.code
+    ))
+    .text(&words.overlap_guidance.text)
+    .tag("</p>");
+    for n in &words.survey_notes {
+        m.tag(r#"<p class="note">"#).text(n).tag("</p>");
+    }
     html! {
         <section class="panel" id="survey" aria-labelledby="survey-title">
             <h2 id="survey-title">{ "Survey layout" }</h2>
-            <dl class="figures">
-                <dt>{ "Footprint of one photo" }</dt>
-                <dd>{ value("footprint_across_m", s.footprint_across_m, len(s.footprint_across_m)) }{ " across × " }{ value("footprint_along_m", s.footprint_along_m, len(s.footprint_along_m)) }{ " along" }</dd>
-                <dt>{ "Base between photos" }</dt><dd>{ value("base_m", s.base_m, len(s.base_m)) }</dd>
-                <dt>{ "Line spacing" }</dt><dd>{ value("line_spacing_m", s.line_spacing_m, len(s.line_spacing_m)) }</dd>
-                <dt>{ "Trigger interval" }</dt><dd>{ maybe("trigger_s", s.trigger_s, format::duration) }</dd>
-                <dt>{ "Flight lines" }</dt><dd>{ count("lines", s.lines) }</dd>
-                <dt>{ "Photos per line / in total" }</dt><dd>{ count("photos_per_line", s.photos_per_line) }{ " / " }{ count("photos", s.photos) }</dd>
-                <dt>{ "Path length" }</dt><dd>{ maybe("path_length_m", s.path_length_m, len) }</dd>
-                <dt>{ "Flight time with turns" }</dt><dd>{ maybe("flight_time_s", s.flight_time_s, format::duration) }</dd>
-                <dt>{ "Batteries" }</dt><dd>{ count("batteries", s.batteries) }</dd>
-                <dt>{ "Storage" }</dt><dd>{ maybe("storage_mb", s.storage_mb, |mb| if mb >= 1000.0 { format!("{} GB", format::significant(mb / 1000.0)) } else { format!("{} MB", format::significant(mb)) }) }</dd>
-                <dt>{ "Fastest speed within the blur budget" }</dt><dd>{ maybe("max_speed_blur_mps", s.max_speed_blur_mps, spd) }</dd>
-                <dt>{ "Fastest speed the photo interval allows" }</dt><dd>{ maybe("max_speed_trigger_mps", s.max_speed_trigger_mps, spd) }</dd>
-            </dl>
-            if !words.speed_flags.is_empty() {
-                <ul class="flags">
-                    { for words.speed_flags.iter().map(|f| html! {
-                        <li class="flag" data-flag={f.code}><strong>{ format!("Too fast ({}): ", f.code) }</strong>{ format!("{} {}", f.reason, f.change) }</li>
-                    }) }
-                </ul>
-            }
-            <p class="guidance" data-overlap={words.overlap_guidance.code}>{ words.overlap_guidance.text.clone() }</p>
-            { for words.survey_notes.iter().map(|n| html! { <p class="note">{ n.clone() }</p> }) }
+            { m.html() }
             if let Some(l) = &plan.layout { { diagram(l, units, "screen") } }
             <p class="export">
                 <button type="button" onclick={on_export} disabled={ready.is_err()}>{ "Download flight lines (GeoJSON)" }</button>
