@@ -8,6 +8,7 @@ use crate::core::words::format;
 use crate::core::words::format::format_number;
 use crate::core::words::units::Units;
 use crate::ui::browser;
+use crate::ui::markup::Markup;
 use crate::ui::state::{Action, State};
 use std::rc::Rc;
 use yew::prelude::*;
@@ -185,6 +186,30 @@ pub fn geometry_group(props: &InputsProps) -> Html {
     ];
     let report = &state.plan.report;
     let units = state.plan.scenario.units;
+    // The derived figures, written as text (ui::markup).
+    let mut derived = Markup::default();
+    derived
+        .text("Slant range ")
+        .tag(&format!(
+            r#"<span data-key="slant_range_m" data-si="{}">"#,
+            report.slant_range_m
+        ))
+        .text(&format::length(report.slant_range_m, units))
+        .tag(&format!(
+            r#"</span>, look angle <span data-key="look_angle_deg" data-si="{}">"#,
+            report.look_angle_deg
+        ))
+        .text(&format!("{}°", format::significant(report.look_angle_deg)))
+        .tag("</span>");
+    if let (Some(horizon), true) = (report.horizon_m, mode != "down") {
+        derived
+            .tag(&format!(r#", horizon <span data-key="horizon_m" data-si="{horizon}">"#))
+            .text(&format::length(horizon, units))
+            .tag("</span>");
+        if !report.visible {
+            derived.tag(r#"<strong data-key="visible" data-si="false">: the target is below it, not in view</strong>"#);
+        }
+    }
     html! {
         <fieldset class="group" id="group-geometry">
             <legend>{ "Geometry" }</legend>
@@ -194,14 +219,7 @@ pub fn geometry_group(props: &InputsProps) -> Html {
             if mode == "gd" { { field(props, "gd", length_hint(props, "gd")) } }
             { field(props, "tht", Some("a roof, a mast, a person's head; 0 for the ground".to_string())) }
             if mode != "down" { { field(props, "refk", Some("bends the view over the Earth: 4/3 for standard air, 1 for none".to_string())) } }
-            <p class="derived">
-                { "Slant range " }<span data-key="slant_range_m" data-si={report.slant_range_m.to_string()}>{ format::length(report.slant_range_m, units) }</span>
-                { ", look angle " }<span data-key="look_angle_deg" data-si={report.look_angle_deg.to_string()}>{ format!("{}°", format::significant(report.look_angle_deg)) }</span>
-                if let (Some(horizon), true) = (report.horizon_m, mode != "down") {
-                    { ", horizon " }<span data-key="horizon_m" data-si={horizon.to_string()}>{ format::length(horizon, units) }</span>
-                    if !report.visible { <strong data-key="visible" data-si="false">{ ": the target is below it, not in view" }</strong> }
-                }
-            </p>
+            <p class="derived">{ derived.html() }</p>
         </fieldset>
     }
 }
