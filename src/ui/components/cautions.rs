@@ -1,5 +1,6 @@
 //! Cautions: always visible, and printed with the plan.
 
+use crate::ui::markup::Markup;
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;
@@ -10,17 +11,31 @@ pub struct CautionsProps {
     pub state: Rc<State>,
 }
 
-/// The cautions panel.
+/// The cautions panel (its list written as text: `ui::markup`).
 #[function_component(Cautions)]
 pub fn cautions(props: &CautionsProps) -> Html {
+    let mut m = Markup::default();
+    m.tag("<ul>");
+    for c in &props.state.plan.report.cautions {
+        let lead = match c.code {
+            "height" => "Height: ",
+            "privacy" => "Privacy: ",
+            _ => "Please note: ",
+        };
+        m.tag(&format!(
+            r#"<li class="caution {0}" data-caution="{0}"><strong>"#,
+            c.code
+        ))
+        .text(lead)
+        .tag("</strong>")
+        .text(&c.text)
+        .tag("</li>");
+    }
+    m.tag("</ul>");
     html! {
         <section class="panel cautions" id="cautions" aria-labelledby="cautions-title">
             <h2 id="cautions-title">{ "Cautions" }</h2>
-            <ul>
-                { for props.state.plan.report.cautions.iter().map(|c| html! {
-                    <li class={classes!("caution", c.code)} data-caution={c.code}><strong>{ match c.code { "height" => "Height: ", "privacy" => "Privacy: ", _ => "Please note: " } }</strong>{ c.text.clone() }</li>
-                }) }
-            </ul>
+            { m.html() }
         </section>
     }
 }
