@@ -5,7 +5,7 @@
 //! ground-plane stretch of the sampling figure for oblique views is reported beside them.
 
 use crate::core::physics::chain::{self, ChainInputs, Direction, Quality, SystemMtf};
-use crate::core::physics::geometry::Geometry;
+use crate::core::physics::geometry::{Geometry, View};
 use crate::core::physics::optics;
 use crate::core::physics::turbulence::{self, Exposure, Profile};
 use serde::Serialize;
@@ -166,20 +166,25 @@ fn finite(x: f64) -> f64 {
 
 /// Evaluates the four limits for a setup. Never panics; every figure is finite.
 pub fn evaluate(setup: &Setup) -> Evaluation {
-    let r0 = turbulence::spherical_wave_r0(&setup.profile, setup.geometry.slant_path(), setup.wavelength_m);
-    evaluate_through(setup, r0)
+    let view = setup.geometry.view();
+    let r0 = turbulence::spherical_wave_r0(&setup.profile, view.path, setup.wavelength_m);
+    evaluate_in(setup, &view, r0)
 }
 
 /// [`evaluate`] with the path's Fried parameter already known: for solves that change only the
 /// lens, which leaves the air path (and so r0, the costly path integral) as it is.
 pub fn evaluate_through(setup: &Setup, r0: Option<f64>) -> Evaluation {
+    evaluate_in(setup, &setup.geometry.view(), r0)
+}
+
+/// [`evaluate_through`] with the geometry's view already worked out.
+fn evaluate_in(setup: &Setup, view: &View, r0: Option<f64>) -> Evaluation {
     let pitch = finite(setup.pixel_pitch_m());
     let aperture = finite(optics::aperture_diameter(setup.focal_m, setup.f_number));
-    let geometry = setup.geometry;
-    let range = finite(geometry.slant_range_m());
-    let look = geometry.look_angle_rad();
+    let range = finite(view.slant_range_m);
+    let look = view.look_angle_rad;
     let look = if look.is_finite() { look } else { 0.0 };
-    let elevation = geometry.elevation_rad();
+    let elevation = view.elevation_rad;
     let elevation = if elevation.is_finite() {
         elevation.max(1e-6)
     } else {
@@ -254,7 +259,7 @@ pub fn evaluate_through(setup: &Setup, r0: Option<f64>) -> Evaluation {
         slant_range_m: range,
         look_angle_deg: look.to_degrees(),
         incidence_deg: (std::f64::consts::FRAC_PI_2 - elevation).to_degrees(),
-        visible: geometry.visible(),
+        visible: view.visible,
         gsd_m: gsd,
         gsd_ground_m: finite(gsd / sin_elev),
         gsd_geomean_m: finite(gsd / sin_elev.sqrt()),

@@ -88,55 +88,78 @@ impl Geometry {
         })
     }
 
-    /// The camera's height above the target's top on a flat Earth.
-    fn rise_m(&self) -> f64 {
-        self.height_m - self.target_height_m
+    /// Everything the engine takes from the geometry, worked out once (one sight on the sphere).
+    pub fn view(&self) -> View {
+        let (slant_range_m, look_angle_rad, elevation_rad, visible, sag_m) = match self.sight() {
+            Some(s) => {
+                let straight = 0.5 * (s.camera_height_m + s.target_height_m);
+                let sag = (straight - s.height_along_path_m(0.5)).max(0.0);
+                (s.slant_range_m, s.look_angle_rad, s.elevation_rad, s.visible, sag)
+            }
+            None => {
+                let rise = self.height_m - self.target_height_m;
+                let look = self.ground_distance_m.atan2(rise);
+                (
+                    rise.hypot(self.ground_distance_m),
+                    look,
+                    std::f64::consts::FRAC_PI_2 - look,
+                    true,
+                    0.0,
+                )
+            }
+        };
+        View {
+            slant_range_m,
+            look_angle_rad,
+            elevation_rad,
+            visible,
+            path: SlantPath {
+                camera_altitude_m: self.height_m,
+                length_m: if slant_range_m.is_finite() { slant_range_m } else { 0.0 },
+                target_altitude_m: self.target_height_m.max(0.0),
+                sag_m,
+            },
+        }
     }
 
     /// Slant range R: the straight line from the camera to the target (√(Δh² + g²) when flat).
     pub fn slant_range_m(&self) -> f64 {
-        match self.sight() {
-            Some(s) => s.slant_range_m,
-            None => self.rise_m().hypot(self.ground_distance_m),
-        }
+        self.view().slant_range_m
     }
 
     /// Look angle θ from straight down at the camera, radians (atan2(g, Δh) when flat).
     pub fn look_angle_rad(&self) -> f64 {
-        match self.sight() {
-            Some(s) => s.look_angle_rad,
-            None => self.ground_distance_m.atan2(self.rise_m()),
-        }
+        self.view().look_angle_rad
     }
 
     /// The camera's elevation above the target's horizontal, radians (90° − θ when flat; less by
     /// the angle of Earth between them when round).
     pub fn elevation_rad(&self) -> f64 {
-        match self.sight() {
-            Some(s) => s.elevation_rad,
-            None => std::f64::consts::FRAC_PI_2 - self.look_angle_rad(),
-        }
+        self.view().elevation_rad
     }
 
     /// Whether the target is above the horizon (always on a flat Earth).
     pub fn visible(&self) -> bool {
-        self.sight().is_none_or(|s| s.visible)
+        self.view().visible
     }
 
     /// The path that the turbulence integral follows: its length, the heights at its ends, and how
     /// far the straight line of sight sags below the straight rise between them at its middle over
     /// the round Earth.
     pub fn slant_path(&self) -> SlantPath {
-        let length_m = self.slant_range_m();
-        let sag_m = self.sight().map_or(0.0, |s| {
-            let straight = 0.5 * (s.camera_height_m + s.target_height_m);
-            (straight - s.height_along_path_m(0.5)).max(0.0)
-        });
-        SlantPath {
-            camera_altitude_m: self.height_m,
-            length_m: if length_m.is_finite() { length_m } else { 0.0 },
-            target_altitude_m: self.target_height_m.max(0.0),
-            sag_m,
-        }
+        self.view().path
     }
+}
+
+/// The geometry as the engine uses it, worked out once per evaluation ([`Geometry::view`]).
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct View {
+    pub slant_range_m: f64,
+    pub look_angle_rad: f64,
+    /// The camera's elevation above the target's horizontal.
+    pub elevation_rad: f64,
+    /// Whether the target is above the horizon.
+    pub visible: bool,
+    /// The path the turbulence integral follows.
+    pub path: SlantPath,
 }
