@@ -248,7 +248,7 @@ pub fn caution(caution: Caution, units: Units) -> String {
     match caution {
         Caution::BeyondHorizon { distance_m, horizon_m } => format!(
             "The target, {} away, is below the horizon, which for these heights lies {} away with \
-             standard refraction: it is not in view, so nothing of it can be seen from here. Raise the \
+             the refraction assumed: it is not in view, so nothing of it can be seen from here. Raise the \
              camera, or come closer.",
             length(distance_m, units),
             length(horizon_m, units)

@@ -86,7 +86,7 @@ pub fn limits_chart(props: &ChartProps) -> Html {
             { chart_svg(c, &title) }
             <p class="legend">
                 { "Solid: sampling · long dashes: diffraction · dots: turbulence · dash-dot: motion · thick line: the governing envelope · fine dots: the detail resolved with all the blurs together (GRD, coarser direction). Vertical lines: the current " }
-                { notes::axis_noun(plan.sweep.axis) }{ ", the 120 m (400 ft) height many rules cap drones at, where the governing limit changes, and the greatest " }{ notes::axis_noun(plan.sweep.axis) }{ " meeting the need and each task at a 50 % chance." }
+                { notes::axis_noun(plan.sweep.axis) }{ ", the 120 m (400 ft) height many rules cap drones at, where the governing limit changes, and the greatest " }{ notes::axis_noun(plan.sweep.axis) }{ " meeting the need and each task at a 50 % chance; along the ground, dash-dot: the horizon." }
             </p>
         </section>
     }
