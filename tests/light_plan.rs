@@ -276,3 +276,15 @@ fn the_suggested_turbulence_profile_follows_the_sun() {
         );
     }
 }
+
+/// A place alone (a survey's origin) says nothing of the light; a time without a place says that
+/// the sun needs one.
+#[test]
+fn only_a_time_without_a_place_asks_for_the_place() {
+    let place_only = report(&format!("v=1&{CAMERA}&lat=-36.85&lon=146.29"));
+    assert!(place_only.light_notes.is_empty(), "{:?}", place_only.light_notes);
+    let time_only = report(&format!("v=1&{CAMERA}&when=2026-11-02T10%3A30%2B11%3A00"));
+    let codes: Vec<&str> = time_only.light_notes.iter().map(|n| n.code).collect();
+    assert_eq!(codes, ["place"]);
+    assert!(time_only.light_notes[0].text.contains("latitude and longitude"));
+}

@@ -104,7 +104,7 @@ pub enum SnrSource {
 /// Something about the light a person should know; figures in SI.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub enum LightNote {
-    /// A time was given without a place, or a place without a time: the sun is not placed.
+    /// A time was given without a place: the sun is not placed.
     SunNeedsTimeAndPlace,
     /// The sun is being worked out (the page's second module): the light follows in a moment.
     SunPending,
@@ -197,7 +197,9 @@ impl LightInputs {
 pub fn plan_light(inputs: &LightInputs) -> Light {
     let mut notes = Vec::new();
     let placed = inputs.instant_and_place();
-    if placed.is_none() && (inputs.when.is_some() != inputs.latitude_deg.is_some()) && inputs.lux.is_none() {
+    // A time without a place asks for a sun that cannot be placed; a place alone (a survey's
+    // origin) asks for nothing of the light.
+    if placed.is_none() && inputs.when.is_some() && inputs.lux.is_none() {
         notes.push(LightNote::SunNeedsTimeAndPlace);
     }
     let (sun, pending) = match inputs.sun {

@@ -60,7 +60,7 @@ pub fn light_note(note: &LightNote) -> LightNoteWords {
     let (code, text) = match *note {
         LightNote::SunNeedsTimeAndPlace => (
             "place",
-            "The sun needs both a date and time and a place (latitude and longitude).".to_string(),
+            "The sun needs a place as well as the date and time: give the latitude and longitude.".to_string(),
         ),
         LightNote::SunPending => (
             "placing",
