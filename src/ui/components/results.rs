@@ -129,7 +129,7 @@ fn push_limit_card(m: &mut Markup, limit: Limit, state: &State) {
     if is_gov {
         m.tag("GOVERNS");
     } else {
-        m.text(&format!("{} of the governing limit", format::percent(share)));
+        m.text(&format::percent(share)).tag(" of the governing limit");
     }
     m.tag("</p><p class=\"detail\">");
     push_detail(m, limit, state);
@@ -163,7 +163,7 @@ fn push_combined_card(m: &mut Markup, state: &State) {
     if ratio <= 1.0005 {
         m.tag("equal to the governing limit");
     } else {
-        m.text(&format!("{} the governing limit", format::times(ratio)));
+        m.text(&format::times(ratio)).tag(" the governing limit");
     }
     m.tag("</p><p class=\"detail\">along the motion ");
     push_value(
@@ -191,9 +191,7 @@ fn push_quality(m: &mut Markup, state: &State) {
     let level = notes::niirs_level(report.niirs);
     m.tag("<div aria-labelledby=\"quality-title\" class=\"quality\"><h3 id=\"quality-title\">Predicted image quality</h3><p class=\"niirs\"><strong>NIIRS ");
     push_value(m, "niirs", report.niirs, &format!("{:.1}", report.niirs));
-    m.tag("</strong>")
-        .text(&format!(" — {}", report.niirs_reading))
-        .tag("</p>");
+    m.tag("</strong> — ").text(report.niirs_reading).tag("</p>");
     if let Some(note) = &report.niirs_note {
         m.tag("<p data-key=\"niirs_note\" data-si=\"")
             .text(note)
@@ -247,14 +245,14 @@ fn body(state: &State) -> Markup {
         report.limit_m,
         &format::length(report.limit_m, units),
     );
-    m.text(&if report.governing_margin > 1.0 {
-        format!(
-            ", {} the next limit, {runner_up}.",
-            format::times(report.governing_margin)
-        )
+    if report.governing_margin > 1.0 {
+        m.tag(", ")
+            .text(&format::times(report.governing_margin))
+            .tag(" the next limit, ");
     } else {
-        format!(", level with {runner_up}.")
-    });
+        m.tag(", level with ");
+    }
+    m.text(&runner_up).tag(".");
     m.tag("</p><p data-key=\"advice\" data-si=\"")
         .text(report.advice)
         .tag("\" class=\"advice\">To see finer detail: ")
@@ -266,7 +264,8 @@ fn body(state: &State) -> Markup {
     push_combined_card(&mut m, state);
     m.tag("</div><dl class=\"figures\"><dt>Sampling ratio Q = λN/p</dt><dd>");
     push_value(&mut m, "q", report.q, &format::significant(report.q));
-    m.text(&format!(" — {}", report.sampling_regime))
+    m.tag(" — ")
+        .text(report.sampling_regime)
         .tag("</dd><dt>Detail resolved (coarser direction) and GSD ")
         .text(notes::plane(report.target_plane))
         .tag("</dt><dd>");
@@ -308,7 +307,7 @@ fn body(state: &State) -> Markup {
         &mut m,
         "motion_px",
         report.motion_px,
-        &format!("{} px", format::significant(report.motion_px)),
+        &(format::significant(report.motion_px) + " px"),
     );
     m.tag("</dd></dl>");
     push_quality(&mut m, state);
