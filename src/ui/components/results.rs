@@ -40,23 +40,6 @@ pub fn invalid_inputs(state: &State, field: &str) -> Vec<&'static str> {
         .collect()
 }
 
-/// A displayed value tagged with its report field and SI value.
-pub fn value(key: impl Into<AttrValue>, si: f64, text: String) -> Html {
-    let key: AttrValue = key.into();
-    html! { <span class="value" data-key={key} data-si={si.to_string()}>{ text }</span> }
-}
-
-/// A displayed value as markup: the same span as `value` draws.
-fn push_value(m: &mut Markup, key: &str, si: f64, text: &str) {
-    m.tag("<span data-key=\"")
-        .tag(key)
-        .tag("\" data-si=\"")
-        .text(&si.to_string())
-        .tag("\" class=\"value\">")
-        .text(text)
-        .tag("</span>");
-}
-
 /// A paragraph saying which defaults a result uses, if any.
 fn push_stale(m: &mut Markup, invalid: &[&str]) {
     if !invalid.is_empty() {
@@ -73,7 +56,7 @@ fn push_detail(m: &mut Markup, limit: Limit, state: &State) {
     let text = match limit {
         Limit::Sampling => {
             m.tag("two pixels: GSD ");
-            push_value(m, "gsd_m", report.gsd_m, &format::length(report.gsd_m, units));
+            m.figure("gsd_m", report.gsd_m, &format::length(report.gsd_m, units));
             if report.look_angle_deg > 1.0 {
                 format!(
                     "; on the ground along the view {}",
@@ -124,7 +107,7 @@ fn push_limit_card(m: &mut Markup, limit: Limit, state: &State) {
         .tag(if invalid.is_empty() { "\"><h3>" } else { " stale\"><h3>" })
         .text(notes::limit_title(limit))
         .tag("</h3><p class=\"big\">");
-    push_value(m, key, v, &format::length(v, units));
+    m.figure(key, v, &format::length(v, units));
     m.tag("</p><p class=\"tag\">");
     if is_gov {
         m.tag("GOVERNS");
@@ -158,7 +141,7 @@ fn push_combined_card(m: &mut Markup, state: &State) {
         "<article data-limit=\"grd\" class=\"limit combined stale\">"
     })
     .tag("<h3>All together (GRD)</h3><p class=\"big\">");
-    push_value(m, "grd_m", report.grd_m, &format::length(report.grd_m, units));
+    m.figure("grd_m", report.grd_m, &format::length(report.grd_m, units));
     m.tag("</p><p class=\"tag\">");
     if ratio <= 1.0005 {
         m.tag("equal to the governing limit");
@@ -166,15 +149,13 @@ fn push_combined_card(m: &mut Markup, state: &State) {
         m.text(&format::times(ratio)).tag(" the governing limit");
     }
     m.tag("</p><p class=\"detail\">along the motion ");
-    push_value(
-        m,
+    m.figure(
         "grd_along_m",
         report.grd_along_m,
         &format::length(report.grd_along_m, units),
     );
     m.tag(", across ");
-    push_value(
-        m,
+    m.figure(
         "grd_across_m",
         report.grd_across_m,
         &format::length(report.grd_across_m, units),
@@ -190,7 +171,7 @@ fn push_quality(m: &mut Markup, state: &State) {
     let report = &state.plan.report;
     let level = notes::niirs_level(report.niirs);
     m.tag("<div aria-labelledby=\"quality-title\" class=\"quality\"><h3 id=\"quality-title\">Predicted image quality</h3><p class=\"niirs\"><strong>NIIRS ");
-    push_value(m, "niirs", report.niirs, &format!("{:.1}", report.niirs));
+    m.figure("niirs", report.niirs, &format!("{:.1}", report.niirs));
     m.tag("</strong> — ").text(report.niirs_reading).tag("</p>");
     if let Some(note) = &report.niirs_note {
         m.tag("<p data-key=\"niirs_note\" data-si=\"")
@@ -208,10 +189,10 @@ fn push_quality(m: &mut Markup, state: &State) {
     m.tag("<p class=\"edges\">");
     for (words, key, v) in edges {
         m.tag(words);
-        push_value(m, key, v, &format!("{v:.2}"));
+        m.figure(key, v, &format!("{v:.2}"));
     }
     m.tag("; contrast SNR ");
-    push_value(m, "snr", report.snr, &format::significant(report.snr));
+    m.figure("snr", report.snr, &format::significant(report.snr));
     m.tag("</p><ol aria-label=\"What each NIIRS level shows\" reversed=\"reversed\" class=\"niirs-scale\">");
     for &(n, words) in notes::NIIRS_SCALE.iter().rev() {
         let here = Some(n) == level;
@@ -239,12 +220,7 @@ fn body(state: &State) -> Markup {
         .tag("\" class=\"governing\"><strong>")
         .text(notes::limit_title(governing))
         .tag(" governs: </strong>");
-    push_value(
-        &mut m,
-        "limit_m",
-        report.limit_m,
-        &format::length(report.limit_m, units),
-    );
+    m.figure("limit_m", report.limit_m, &format::length(report.limit_m, units));
     if report.governing_margin > 1.0 {
         m.tag(", ")
             .text(&format::times(report.governing_margin))
@@ -263,27 +239,25 @@ fn body(state: &State) -> Markup {
     }
     push_combined_card(&mut m, state);
     m.tag("</div><dl class=\"figures\"><dt>Sampling ratio Q = λN/p</dt><dd>");
-    push_value(&mut m, "q", report.q, &format::significant(report.q));
+    m.figure("q", report.q, &format::significant(report.q));
     m.tag(" — ")
         .text(report.sampling_regime)
         .tag("</dd><dt>Detail resolved (coarser direction) and GSD ")
         .text(notes::plane(report.target_plane))
         .tag("</dt><dd>");
-    push_value(
-        &mut m,
+    m.figure(
         "detail_on_plane_m",
         report.detail_on_plane_m,
         &format::length(report.detail_on_plane_m, units),
     );
     m.tag(", GSD ");
-    push_value(
-        &mut m,
+    m.figure(
         "gsd_on_plane_m",
         report.gsd_on_plane_m,
         &format::length(report.gsd_on_plane_m, units),
     );
     m.tag("</dd><dt>Rytov variance of the path</dt><dd>");
-    push_value(&mut m, "rytov", report.rytov, &format::significant(report.rytov));
+    m.figure("rytov", report.rytov, &format::significant(report.rytov));
     m.tag(if report.rytov > 1.0 {
         " — strong scintillation: turbulence figures indicative"
     } else if report.rytov > 0.0 {
@@ -296,15 +270,13 @@ fn body(state: &State) -> Markup {
     .tag("\">")
     .text(notes::exposure_kind(report.short_exposure, report.r0_m.is_some()))
     .tag("</dd><dt>Ground-plane GSD along the view</dt><dd>");
-    push_value(
-        &mut m,
+    m.figure(
         "gsd_ground_m",
         report.gsd_ground_m,
         &format::length(report.gsd_ground_m, units),
     );
     m.tag("</dd><dt>Motion smear</dt><dd>");
-    push_value(
-        &mut m,
+    m.figure(
         "motion_px",
         report.motion_px,
         &(format::significant(report.motion_px) + " px"),
