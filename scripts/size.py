@@ -1,8 +1,9 @@
 #!/usr/bin/env python3
 """Size report of dist/: every file raw and gzipped (level 9), and the first load against its budget.
 
-The first load is what the page needs to show its first plan: index.html and what it links as a
-stylesheet (not one for print only), preloads, or imports in a script. An on-demand module is a
+The first load is what a browser fetches when it opens the page: index.html and every file it
+links (style sheets of any medium, preloads, the manifest, icons) or imports in a script; the
+print style sheet, which the page links itself once its first plan shows, is not part of it. An on-demand module is a
 worker's loader shim and what it loads. Their budgets are written here, in one place; the script
 exits with 1 when either is over, which fails the test command.
 Usage: size.py DIST OUT
@@ -24,7 +25,8 @@ def gz(data: bytes) -> int:
 
 
 class _Links(HTMLParser):
-    """The files a page loads before it runs: style sheets (not print-only), preloads, module
+    """The files a page loads before it runs: every file it links (style sheets, preloads, the
+    manifest, icons), module
     imports and the WebAssembly named in its inline loader."""
 
     def __init__(self):
@@ -34,7 +36,9 @@ class _Links(HTMLParser):
 
     def handle_starttag(self, tag, attrs):
         a = dict(attrs)
-        if tag == "link" and a.get("rel") in ("stylesheet", "modulepreload", "preload") and a.get("media") != "print":
+        # Every file the page links: style sheets of any medium (a browser fetches a print sheet at
+        # once too), preloads, the manifest and the icons.
+        if tag == "link" and a.get("rel") in ("stylesheet", "modulepreload", "preload", "manifest", "icon", "apple-touch-icon"):
             self.names.append(a.get("href") or "")
         if tag == "script":
             if a.get("src"):

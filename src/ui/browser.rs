@@ -278,6 +278,21 @@ pub fn print_when_settled() {
     gloo::timers::callback::Timeout::new(50, || attempt(40)).forget();
 }
 
+/// Links the print style sheet (`print.css`, for print only) once the page has started, so that
+/// it is not part of the first load; nothing is lost if the browser refuses.
+pub fn link_print_style() {
+    let Some(document) = web_sys::window().and_then(|w| w.document()) else {
+        return;
+    };
+    let (Ok(link), Some(head)) = (document.create_element("link"), document.head()) else {
+        return;
+    };
+    for (name, value) in [("rel", "stylesheet"), ("media", "print"), ("href", "print.css")] {
+        let _ = link.set_attribute(name, value);
+    }
+    let _ = head.append_child(&link);
+}
+
 /// Registers the service worker that keeps the app usable offline.
 pub fn register_service_worker() {
     let Some(window) = web_sys::window() else { return };

@@ -30,6 +30,7 @@ pub fn start() {
             yew::Renderer::<app::App>::new().render();
         }
     }
+    browser::link_print_style();
 }
 
 /// A panic in WebAssembly stops the app; instead of a frozen page, show the notice that
