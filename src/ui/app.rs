@@ -255,18 +255,19 @@ fn use_in_view(settled_link: &AttrValue) -> Option<Vec<String>> {
         use_effect_with(settled_link.clone(), move |_| {
             let mut slot = observer.borrow_mut();
             if slot.is_none() {
-                let seen = Rc::new(std::cell::RefCell::new(std::collections::BTreeSet::<String>::new()));
+                // Whether each of DEFERRABLE is in view, in that order.
+                let seen = Rc::new(std::cell::RefCell::new([false; DEFERRABLE.len()]));
                 let on_change = Closure::<dyn Fn(js_sys::Array)>::new(move |entries: js_sys::Array| {
+                    let mut seen = seen.borrow_mut();
                     for entry in entries.iter() {
                         let entry: web_sys::IntersectionObserverEntry = entry.unchecked_into();
                         let id = entry.target().id();
-                        if entry.is_intersecting() {
-                            seen.borrow_mut().insert(id);
-                        } else {
-                            seen.borrow_mut().remove(&id);
+                        if let Some(at) = DEFERRABLE.iter().position(|d| *d == id) {
+                            seen[at] = entry.is_intersecting();
                         }
                     }
-                    in_view.set(Some(seen.borrow().iter().cloned().collect()));
+                    let ids = DEFERRABLE.iter().zip(seen.iter()).filter(|(_, s)| **s);
+                    in_view.set(Some(ids.map(|(id, _)| id.to_string()).collect()));
                 });
                 if let Ok(made) = web_sys::IntersectionObserver::new(on_change.as_ref().unchecked_ref()) {
                     *slot = Some((made, on_change));

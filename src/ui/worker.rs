@@ -5,7 +5,6 @@
 //! is lost, so the page queues requests until then).
 
 use std::cell::RefCell;
-use std::collections::BTreeMap;
 use wasm_bindgen::closure::Closure;
 use wasm_bindgen::{JsCast, JsValue};
 
@@ -20,7 +19,8 @@ struct Running {
     worker: web_sys::Worker,
     listening: bool,
     queued: Vec<js_sys::Array>,
-    waiting: BTreeMap<u32, Done>,
+    /// Requests sent, by id, waiting for their answer (a few at most: a list is enough).
+    waiting: Vec<(u32, Done)>,
     next_id: u32,
     _on_message: Closure<dyn Fn(web_sys::MessageEvent)>,
     _on_error: Closure<dyn Fn(web_sys::Event)>,
@@ -53,7 +53,7 @@ pub fn ask(loader: &'static str, request: &[JsValue], done: impl FnOnce(Result<j
         for part in request {
             message.push(part);
         }
-        w.waiting.insert(id, Box::new(done));
+        w.waiting.push((id, Box::new(done)));
         if w.listening {
             let _ = w.worker.post_message(&message);
         } else {
@@ -76,10 +76,10 @@ fn start(loader: &'static str) -> bool {
         let answer = js_sys::Array::from(&data);
         let id = answer.shift().as_f64().map_or(u32::MAX, |id| id as u32);
         let done = RUNNING.with(|r| {
-            r.borrow_mut()
-                .iter_mut()
-                .find(|w| w.loader == loader)
-                .and_then(|w| w.waiting.remove(&id))
+            r.borrow_mut().iter_mut().find(|w| w.loader == loader).and_then(|w| {
+                let at = w.waiting.iter().position(|(waiting, _)| *waiting == id)?;
+                Some(w.waiting.swap_remove(at).1)
+            })
         });
         if let Some(done) = done {
             done(Ok(answer));
@@ -94,7 +94,7 @@ fn start(loader: &'static str) -> bool {
             worker,
             listening: false,
             queued: Vec::new(),
-            waiting: BTreeMap::new(),
+            waiting: Vec::new(),
             next_id: 0,
             _on_message: on_message,
             _on_error: on_error,
