@@ -93,7 +93,7 @@ impl Limits {
     /// The limits ordered from the largest (governing) down; ties keep the display order.
     pub fn ranked(&self) -> [Limit; 4] {
         let mut order = Limit::ALL;
-        order.sort_by(|a, b| self.get(*b).total_cmp(&self.get(*a)));
+        super::sort_short(&mut order, |a, b| self.get(*a) > self.get(*b));
         order
     }
 

@@ -252,7 +252,7 @@ pub fn integrate_along(profile: &Profile, heights: PathHeights, weight: impl Fn(
         }
         cuts.push(u);
     }
-    cuts.sort_by(f64::total_cmp);
+    super::sort_short(&mut cuts, |a, b| a.total_cmp(b).is_lt());
     cuts.dedup();
     let rule = gauss_legendre();
     let mut total = 0.0;
