@@ -4,6 +4,7 @@
 use crate::core::physics::engine::Limit;
 use crate::core::words::chart::{Chart, HEIGHT, WIDTH};
 use crate::core::words::notes;
+use crate::ui::markup::{esc, Markup};
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;
@@ -26,52 +27,97 @@ fn dash(limit: Limit) -> &'static str {
     }
 }
 
-/// The chart as an SVG element, used on screen and on the printed plan.
+/// The chart as an SVG element, used on screen and on the printed plan; written as text (see
+/// `ui::markup`).
 pub fn chart_svg(c: &Chart, title: &str) -> Html {
-    let vb = format!("0 0 {WIDTH} {HEIGHT}");
-    html! {
-            <svg class="chart" viewBox={vb} role="img" aria-label={format!("{title}; the thick line is the governing envelope")} data-x-max={c.x_max_m.to_string()}>
-                <rect class="plot-bg" x={c.plot_left.to_string()} y={c.plot_top.to_string()} width={(c.plot_right - c.plot_left).to_string()} height={(c.plot_bottom - c.plot_top).to_string()} />
-                { for c.y_ticks.iter().map(|t| html! {
-                    <g class="tick">
-                        <line x1={c.plot_left.to_string()} x2={c.plot_right.to_string()} y1={t.at.to_string()} y2={t.at.to_string()} />
-                        <text x={(c.plot_left - 6.0).to_string()} y={(t.at + 4.0).to_string()} text-anchor="end">{ t.label.clone() }</text>
-                    </g>
-                }) }
-                { for c.x_ticks.iter().map(|t| html! {
-                    <g class="tick">
-                        <line x1={t.at.to_string()} x2={t.at.to_string()} y1={c.plot_top.to_string()} y2={c.plot_bottom.to_string()} />
-                        <text x={t.at.to_string()} y={(c.plot_bottom + 16.0).to_string()} text-anchor="middle">{ t.label.clone() }</text>
-                    </g>
-                }) }
-                <text class="axis-title" x={((c.plot_left + c.plot_right) / 2.0).to_string()} y={(HEIGHT - 8.0).to_string()} text-anchor="middle">{ c.x_title.clone() }</text>
-                <text class="axis-title" transform={format!("translate(14 {}) rotate(-90)", (c.plot_top + c.plot_bottom) / 2.0)} text-anchor="middle">{ c.y_title.clone() }</text>
-                <path class="envelope" d={c.envelope.clone()} />
-                <g class="series grd">
-                    <path d={c.grd.clone()} stroke-dasharray="1 3" />
-                    <text x={(c.plot_right - 4.0).to_string()} y={c.grd_label_y.to_string()} text-anchor="end">{ "GRD" }</text>
-                </g>
-                { for c.series.iter().map(|s| html! {
-                    <g class={classes!("series", s.limit.key())}>
-                        <path d={s.path.clone()} stroke-dasharray={dash(s.limit)} />
-                        <text x={s.label_x.to_string()} y={s.label_y.to_string()} text-anchor="end">{ s.limit.key() }</text>
-                    </g>
-                }) }
-                { for c.x_markers.iter().map(|m| html! {
-                    <g class={classes!("marker", m.kind)} data-marker={m.kind}>
-                        <line x1={m.at.to_string()} x2={m.at.to_string()} y1={c.plot_top.to_string()} y2={c.plot_bottom.to_string()} />
-                        // Task marks are labelled at the foot, clear of the other marks' labels at the top.
-                        <text x={(m.at + 3.0).to_string()} y={(if m.kind == "task" { c.plot_bottom - 6.0 } else { c.plot_top + 12.0 }).to_string()}>{ m.label.clone() }</text>
-                    </g>
-                }) }
-                { for c.y_markers.iter().map(|m| html! {
-                    <g class={classes!("marker", m.kind)} data-marker={m.kind}>
-                        <line x1={c.plot_left.to_string()} x2={c.plot_right.to_string()} y1={m.at.to_string()} y2={m.at.to_string()} />
-                        <text x={(c.plot_left + 4.0).to_string()} y={(m.at - 4.0).to_string()}>{ m.label.clone() }</text>
-                    </g>
-                }) }
-            </svg>
+    let mut m = Markup::default();
+    chart_markup(&mut m, c, title);
+    m.html()
+}
+
+/// The chart's SVG written into `m`.
+pub fn chart_markup(m: &mut Markup, c: &Chart, title: &str) {
+    let (left, right, top, bottom) = (c.plot_left, c.plot_right, c.plot_top, c.plot_bottom);
+    m.tag(&format!(r#"<svg class="chart" viewBox="0 0 {WIDTH} {HEIGHT}" role="img" aria-label=""#))
+        .text(title)
+        .tag(&format!(
+            r#"; the thick line is the governing envelope" data-x-max="{}"><rect class="plot-bg" x="{left}" y="{top}" width="{}" height="{}" />"#,
+            c.x_max_m,
+            right - left,
+            bottom - top
+        ));
+    for t in &c.y_ticks {
+        m.tag(&format!(
+            r#"<g class="tick"><line x1="{left}" x2="{right}" y1="{0}" y2="{0}" /><text x="{1}" y="{2}" text-anchor="end">"#,
+            t.at,
+            left - 6.0,
+            t.at + 4.0
+        ))
+        .text(&t.label)
+        .tag("</text></g>");
     }
+    for t in &c.x_ticks {
+        m.tag(&format!(
+            r#"<g class="tick"><line x1="{0}" x2="{0}" y1="{top}" y2="{bottom}" /><text x="{0}" y="{1}" text-anchor="middle">"#,
+            t.at,
+            bottom + 16.0
+        ))
+        .text(&t.label)
+        .tag("</text></g>");
+    }
+    m.tag(&format!(
+        r#"<text class="axis-title" x="{}" y="{}" text-anchor="middle">"#,
+        (left + right) / 2.0,
+        HEIGHT - 8.0
+    ))
+    .text(&c.x_title)
+    .tag(&format!(
+        r#"</text><text class="axis-title" transform="translate(14 {}) rotate(-90)" text-anchor="middle">"#,
+        (top + bottom) / 2.0
+    ))
+    .text(&c.y_title)
+    .tag("</text>")
+    .tag(&format!(
+        r#"<path class="envelope" d="{}" /><g class="series grd"><path d="{}" stroke-dasharray="1 3" /><text x="{}" y="{}" text-anchor="end">GRD</text></g>"#,
+        esc(&c.envelope),
+        esc(&c.grd),
+        right - 4.0,
+        c.grd_label_y
+    ));
+    for s in &c.series {
+        m.tag(&format!(
+            r#"<g class="series {0}"><path d="{1}" stroke-dasharray="{2}" /><text x="{3}" y="{4}" text-anchor="end">{0}</text></g>"#,
+            s.limit.key(),
+            esc(&s.path),
+            dash(s.limit),
+            s.label_x,
+            s.label_y
+        ));
+    }
+    for k in &c.x_markers {
+        // Task marks are labelled at the foot, clear of the other marks' labels at the top.
+        let y = if k.kind == "task" { bottom - 6.0 } else { top + 12.0 };
+        m.tag(&format!(
+            r#"<g class="marker {0}" data-marker="{0}"><line x1="{1}" x2="{1}" y1="{top}" y2="{bottom}" /><text x="{2}" y="{y}">"#,
+            k.kind,
+            k.at,
+            k.at + 3.0
+        ))
+        .text(&k.label)
+        .tag("</text></g>");
+    }
+    for k in &c.y_markers {
+        m.tag(&format!(
+            r#"<g class="marker {0}" data-marker="{0}"><line x1="{left}" x2="{right}" y1="{1}" y2="{1}" /><text x="{2}" y="{3}">"#,
+            k.kind,
+            k.at,
+            left + 4.0,
+            k.at - 4.0
+        ))
+        .text(&k.label)
+        .tag("</text></g>");
+    }
+    m.tag("</svg>");
 }
 
 /// The chart panel.
