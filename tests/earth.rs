@@ -603,7 +603,11 @@ fn nptel_example_1_with_the_extra_photos_at_each_end() {
     // The example rounds the interval down to 19 s and flies 55.55 m/s: a 1055.45 m base.
     let base = 55.55 * first.trigger_s.unwrap().floor();
     let adjusted = plan_survey(&nptel_example_1(100.0 * (1.0 - base / first.footprint_along_m)));
-    assert_eq!(adjusted.photos_per_line, Some(44));
+    // The plan counts the extras itself: ceil(half a footprint / base) = 2 at each end.
+    assert_eq!(adjusted.extra_photos_per_end, Some(2));
+    assert_eq!(adjusted.photos_per_line, Some(48));
+    assert_eq!(adjusted.photos, Some(960));
+    assert_eq!(EdgeInputs::from_plan(&adjusted, 0).unwrap().photos_per_line, 44);
     let edges = block_edges(&EdgeInputs::from_plan(&adjusted, WORKED_EXAMPLE_EXTRA_PHOTOS_PER_END).unwrap()).unwrap();
     assert_eq!(edges.photos_per_line, 48);
     assert_eq!(edges.photos, 960);
@@ -614,7 +618,7 @@ fn nptel_example_1_with_the_extra_photos_at_each_end() {
     assert_eq!(edges.photos_for_margin, 2);
     let at_1104 = block_edges(&EdgeInputs::from_plan(&first, 0).unwrap()).unwrap();
     assert_eq!(at_1104.photos_for_margin, 2);
-    assert_eq!(at_1104.photos, 20 * first.photos_per_line.unwrap());
+    assert_eq!(at_1104.photos, 20 * (first.photos_per_line.unwrap() - 4));
     // Across: half of 2760 m over a 1932 m spacing is one line beyond each side, which the
     // example does not add (its 20 lines are ceil(36000/1932) + 1).
     assert_eq!(edges.lines_for_margin, 1);

@@ -181,8 +181,10 @@ fn flight_lines_follow_the_plan() {
         );
         let ends = positions(&line["geometry"]["coordinates"]);
         assert_eq!(ends.len(), 2);
-        // Each line is as long as the area.
-        close(distance(ends[0], ends[1]), 600.0, 1e-3);
+        // Each line is as long as the area and reaches its extra photos, two bases (40 m) beyond
+        // each end.
+        assert_eq!(p.extra_photos_per_end, Some(2));
+        close(distance(ends[0], ends[1]), 600.0 + 2.0 * 40.0, 1e-3);
         // Flown north (heading 0) on odd lines, south on even ones. Each line leaves the base
         // geodesic at a right angle, so its azimuth differs from the heading by the convergence
         // of the meridians, about Δλ·sin φ: 0.001° at line 5 here, well inside 0.01°.

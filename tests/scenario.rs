@@ -95,6 +95,16 @@ const NULLABLE_KEYS: &[&str] = &[
     "storage_mb",
     "max_speed_blur_mps",
     "max_speed_trigger_mps",
+    // The edges need counts; the wind figures need a wind, the relief figures a relief.
+    "extra_photos_per_end",
+    "ground_speed_out_mps",
+    "ground_speed_back_mps",
+    "crab_deg",
+    "gsd_min_m",
+    "gsd_max_m",
+    "front_min_pct",
+    "side_min_pct",
+    "relief_height_m",
     // Null when the inputs lie inside GIQE 5's range (url-and-report.md).
     "niirs_note",
     // The light: no sun without a time and place, no light or signal without either.
@@ -472,6 +482,11 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
         in_range("iso"),
         (maybe("baseiso"), maybe("fw"), maybe("rn"), maybe("fmin")),
         (maybe("tht"), maybe("refk")),
+        (
+            prop::option::of((in_range("relief"), in_range("relief")).prop_map(|(a, b)| (a.min(b), a.max(b)))),
+            in_range("wind"),
+            in_range("wdir"),
+        ),
     );
     (optics, air, survey, place, (needs, chain, light)).prop_map(
         |(
@@ -482,7 +497,7 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
             (
                 (need_gsd, plane, cdm),
                 (obsc, wfe, fill, jitter, snr),
-                (when, sky, lux, refl, auto_exposure, iso, (base_iso, fw, rn, fmin), (tht, refk)),
+                (when, sky, lux, refl, auto_exposure, iso, (base_iso, fw, rn, fmin), (tht, refk), (relief, wind, wdir)),
             ),
         )| Scenario {
             target_height_m: tht,
@@ -537,6 +552,9 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
                 latitude_deg: lat,
                 longitude_deg: lon,
                 heading_deg: hdg,
+                relief_m: relief,
+                wind_mps: wind,
+                wind_from_deg: wdir,
             },
             units,
             extra,

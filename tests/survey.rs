@@ -105,19 +105,18 @@ fn nptel_example_1_photos_as_the_example_counts_them() {
         ..nptel_example_1()
     });
     close(adjusted.base_m, 1055.45, 1e-9);
-    assert_eq!(adjusted.photos_per_line, Some(44));
-    let extras_per_line = 2 + 2;
-    let with_extras = adjusted.photos_per_line.map(|p| p + extras_per_line);
-    assert_eq!(with_extras, Some(48));
-    assert_eq!(with_extras.zip(adjusted.lines).map(|(p, n)| p * n), Some(960));
-    // The planner's own total has no extras: 44 × 20.
-    assert_eq!(adjusted.photos, Some(880));
+    // 44 photos between the ends and 2 beyond each: the planner's extras are ceil(half a
+    // footprint / base) = ceil(1380/1055.45) = 2, the example's.
+    assert_eq!(adjusted.extra_photos_per_end, Some(2));
+    assert_eq!(adjusted.photos_per_line, Some(44 + 2 + 2));
+    assert_eq!(adjusted.lines, Some(20));
+    assert_eq!(adjusted.photos, Some(960));
 }
 
 // The demo field worked by hand from the formulas in resolution-model §7 and the brief:
 // 13.2 × 8.8 mm sensor, 8.8 mm lens, 80 m → footprint 120 m across, 80 m along; 75 % / 65 %
 // overlap → B = 20 m, S = 42 m; 400 m × 600 m → ceil(400/42) + 1 = 11 lines of
-// 600/20 + 1 = 31 photos.
+// 600/20 + 1 = 31 photos, and ceil(40/20) = 2 more beyond each end (half a footprint, 40 m).
 #[test]
 fn demo_field_by_hand() {
     let s = pasture_survey();
@@ -127,15 +126,18 @@ fn demo_field_by_hand() {
     close(p.base_m, 20.0, 1e-9);
     close(p.line_spacing_m, 42.0, 1e-9);
     assert_eq!(p.lines, Some(11));
-    assert_eq!(p.photos_per_line, Some(31));
-    assert_eq!(p.photos, Some(341));
-    // Path: 11 lines of 600 m and 10 hops of 42 m.
-    close(p.path_length_m.unwrap(), 11.0 * 600.0 + 10.0 * 42.0, 1e-6);
-    // Time: 7020 m at 8 m/s and 10 turns of 10 s.
-    close(p.flight_time_s.unwrap(), 7020.0 / 8.0 + 100.0, 1e-6);
-    // 977.5 s in 25-minute batteries.
+    assert_eq!(p.extra_photos_per_end, Some(2));
+    assert_eq!(p.photos_per_line, Some(31 + 4));
+    assert_eq!(p.photos, Some(385));
+    close(p.margin_along_m, 40.0, 1e-9);
+    close(p.margin_across_m, 60.0, 1e-9);
+    // Path: 11 lines of 600 m + 2 × 40 m to the extra photos, and 10 hops of 42 m.
+    close(p.path_length_m.unwrap(), 11.0 * 680.0 + 10.0 * 42.0, 1e-6);
+    // Time: 7900 m at 8 m/s and 10 turns of 10 s.
+    close(p.flight_time_s.unwrap(), 7900.0 / 8.0 + 100.0, 1e-6);
+    // 1087.5 s in 25-minute batteries.
     assert_eq!(p.batteries, Some(1));
-    close(p.storage_mb.unwrap(), 3410.0, 1e-6);
+    close(p.storage_mb.unwrap(), 3850.0, 1e-6);
     close(p.trigger_s.unwrap(), 2.5, 1e-12);
     // The trigger limit: 20 m every 2 s.
     close(p.max_speed_trigger_mps.unwrap(), 10.0, 1e-12);
@@ -148,7 +150,7 @@ fn demo_field_by_hand() {
 
 #[test]
 fn batteries_round_up() {
-    // ceil(flight time / endurance): 977.5 s with 5-minute (300 s) batteries needs 4.
+    // ceil(flight time / endurance): 1087.5 s with 5-minute (300 s) batteries needs 4.
     let p = plan(&Scenario {
         survey: SurveySettings {
             endurance_min: 5.0,
@@ -172,7 +174,10 @@ fn an_exact_multiple_does_not_gain_a_station_from_rounding() {
         ..pasture_survey()
     });
     assert!(80.0 / p.base_m > 10.0, "the rounding this test is about did not occur");
-    assert_eq!(p.photos_per_line, Some(11));
+    // The extras: half the 80 m footprint over the same base, 40/8 = 5 at each end, not 6.
+    assert!(40.0 / p.base_m > 5.0);
+    assert_eq!(p.extra_photos_per_end, Some(5));
+    assert_eq!(p.photos_per_line, Some(11 + 10));
 }
 
 #[test]
@@ -356,7 +361,8 @@ fn the_report_carries_the_survey_fields() {
         assert!(v.get(key).is_some(), "the report lacks {key}");
     }
     assert_eq!(v["lines"], 11);
-    assert_eq!(v["photos"], 341);
+    assert_eq!(v["photos"], 385);
+    assert_eq!(v["extra_photos_per_end"], 2);
 }
 
 #[test]
@@ -365,13 +371,23 @@ fn layout_of_the_demo_field() {
     let p = plan(&s);
     let l = layout(&p, &inputs(&s)).expect("the demo has an area");
     assert_eq!((l.lines_total, l.lines_omitted, l.lines.len()), (11, 0, 11));
-    // Serpentine: line 1 along the heading from the first corner, line 2 back.
+    // Serpentine: line 1 along the heading from the first corner, line 2 back; every line runs
+    // two bases (40 m) beyond each end of the area to its extra photos.
     assert!(l.lines[0].forward && !l.lines[1].forward);
     assert_eq!(
         (l.lines[0].start.x, l.lines[0].start.y, l.lines[0].end.y),
-        (0.0, 0.0, 600.0)
+        (0.0, -40.0, 640.0)
     );
-    assert_eq!((l.lines[1].start.y, l.lines[1].end.y), (600.0, 0.0));
+    assert_eq!((l.lines[1].start.y, l.lines[1].end.y), (640.0, -40.0));
+    // The margin that full overlap needs: half a footprint beyond each end and side.
+    for (got, want) in [
+        (l.margin.x, -60.0),
+        (l.margin.y, -40.0),
+        (l.margin.width, 520.0),
+        (l.margin.height, 680.0),
+    ] {
+        close(got, want, 1e-9);
+    }
     close(l.lines[1].start.x, 42.0, 1e-9);
     // The last line lies on or beyond the far edge, by less than one spacing.
     let last_x = l.lines[10].start.x;
@@ -380,7 +396,7 @@ fn layout_of_the_demo_field() {
     // Three photos of line 1 and the one of line 2 beside line 1's first (its last, flying back).
     let f = &l.footprints;
     assert_eq!(f.len(), 4);
-    assert_eq!((f[3].line, f[3].photo), (2, 31));
+    assert_eq!((f[3].line, f[3].photo), (2, 35));
     // Front overlap: neighbouring photos of line 1 share 75 % of the 80 m footprint length.
     let shared_along = (f[0].rect.y + f[0].rect.height) - f[1].rect.y;
     close(shared_along, 0.75 * 80.0, 1e-9);
@@ -390,7 +406,7 @@ fn layout_of_the_demo_field() {
 
     // The bounds hold everything drawn.
     let b = l.bounds;
-    for r in std::iter::once(l.area).chain(f.iter().map(|f| f.rect)) {
+    for r in [l.area, l.margin].into_iter().chain(f.iter().map(|f| f.rect)) {
         assert!(r.x >= b.x && r.y >= b.y && r.x + r.width <= b.x + b.width && r.y + r.height <= b.y + b.height);
     }
 }
@@ -423,7 +439,8 @@ fn small_areas_keep_the_plus_one_convention() {
         ..pasture_survey()
     };
     let p = plan(&s);
-    assert_eq!((p.lines, p.photos_per_line), (Some(2), Some(2)));
+    // Two stations and the two extras beyond each end.
+    assert_eq!((p.lines, p.photos_per_line), (Some(2), Some(2 + 4)));
     let s = Scenario {
         survey: SurveySettings {
             area_width_m: Some(0.0),
@@ -433,9 +450,10 @@ fn small_areas_keep_the_plus_one_convention() {
         ..pasture_survey()
     };
     let p = plan(&s);
-    assert_eq!((p.lines, p.photos_per_line), (Some(1), Some(1)));
+    assert_eq!((p.lines, p.photos_per_line), (Some(1), Some(1 + 4)));
     let l = layout(&p, &inputs(&s)).unwrap();
-    assert_eq!(l.footprints.len(), 1);
+    // One line: three of its five photos outlined, no second line.
+    assert_eq!(l.footprints.len(), 3);
 }
 
 /// Every number in the plan is finite, counts keep within their caps, and the plan writes as JSON.
@@ -623,5 +641,126 @@ proptest! {
             },
             ..pasture_survey()
         });
+    }
+}
+
+/// The report of `query` as JSON.
+fn report_of(query: &str) -> serde_json::Value {
+    serde_json::from_str(&report_json(query)).expect("the report is JSON")
+}
+
+/// The demo survey's link with the keys of `extra` (`k=v&…`) given instead of the demo's.
+fn demo_with(extra: &str) -> String {
+    let keys: Vec<&str> = extra.split('&').filter_map(|kv| kv.split('=').next()).collect();
+    let demo = pasture_survey().to_query();
+    let kept = demo
+        .split('&')
+        .filter(|kv| !keys.contains(&kv.split('=').next().unwrap_or_default()));
+    kept.chain(std::iter::once(extra)).collect::<Vec<_>>().join("&")
+}
+
+/// The number in report field `key`.
+fn field(v: &serde_json::Value, key: &str) -> f64 {
+    v[key]
+        .as_f64()
+        .unwrap_or_else(|| panic!("{key} is not a number: {}", v[key]))
+}
+
+#[test]
+fn a_hill_under_the_survey_through_the_link() {
+    // Issue 13's case, by hand: a 20 m hill under the 80 m demo survey leaves 60 m to the ground,
+    // so the footprint shrinks to 60/80 of 80 m × 120 m = 60 m × 90 m while the base (20 m) and
+    // the spacing (42 m) stay: front 1 − 20/60 = 66.7 %, side 1 − 42/90 = 53.3 % (planned 75 /
+    // 65 %). Fine GSD 60/80 of the take-off GSD; the coarsest, over ground at take-off, the same.
+    let query = demo_with("relief=0,20");
+    let v = report_of(&query);
+    assert_eq!(v["errors"], serde_json::json!([]));
+    close(field(&v, "front_min_pct"), 100.0 * (1.0 - 20.0 / 60.0), 1e-9);
+    close(field(&v, "side_min_pct"), 100.0 * (1.0 - 42.0 / 90.0), 1e-9);
+    let gsd = field(&v, "gsd_m");
+    close(field(&v, "gsd_min_m"), 0.75 * gsd, 1e-9);
+    close(field(&v, "gsd_max_m"), gsd, 1e-9);
+    // Flying at 80 + 20 m restores the planned overlaps over the hill.
+    close(field(&v, "relief_height_m"), 100.0, 1e-12);
+    let notes: Vec<&str> = v["survey_notes"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .filter_map(|n| n.as_str())
+        .collect();
+    let warned = |side: &str| {
+        notes
+            .iter()
+            .any(|n| n.contains(&format!("the {side} overlap falls")) && n.contains("100 m above take-off"))
+    };
+    assert!(warned("front") && warned("side"), "{notes:?}");
+    // The link keeps the relief, lowest first.
+    let (scenario, _) = Scenario::from_query("relief=20,-5");
+    let (again, errors) = Scenario::from_query(&scenario.to_query());
+    assert!(errors.iter().all(|e| e.key != "relief"));
+    assert_eq!(again.survey.relief_m, Some((-5.0, 20.0)));
+}
+
+#[test]
+fn a_bad_relief_is_named_and_the_ground_taken_as_level() {
+    for bad in ["20", "a,b", "1,2,3", "0,20000"] {
+        let v = report_of(&demo_with(&format!("relief={bad}")));
+        let error = &v["errors"][0];
+        let message = error["message"].as_str().unwrap_or_default();
+        assert_eq!(error["key"], "relief", "{bad}");
+        assert!(
+            message.contains("Ground height under the block") && message.contains("-10000 to 10000"),
+            "{message}"
+        );
+        assert!(v["gsd_min_m"].is_null());
+    }
+}
+
+#[test]
+fn a_headwind_and_a_tailwind_on_the_legs_by_hand() {
+    // 8 m/s through the air on lines heading north, a 3 m/s wind from the north: the out leg
+    // (north) makes 8 − 3 = 5 m/s over the ground, the back leg 8 + 3 = 11 m/s, no crab (the wind
+    // triangle; common practice). The trigger interval and the smear follow the fast leg; the
+    // time the mean over a pair, 2·5·11/16 = 6.875 m/s.
+    let calm = report_of(&demo_with("speed=8"));
+    let v = report_of(&demo_with("speed=8&wind=3&wdir=0"));
+    close(field(&v, "ground_speed_out_mps"), 5.0, 1e-12);
+    close(field(&v, "ground_speed_back_mps"), 11.0, 1e-12);
+    close(field(&v, "crab_deg"), 0.0, 1e-9);
+    close(field(&v, "trigger_s"), 20.0 / 11.0, 1e-12);
+    close(field(&v, "motion_m"), 11.0 * field(&v, "exposure_s"), 1e-12);
+    close(field(&calm, "motion_m"), 8.0 * field(&calm, "exposure_s"), 1e-12);
+    let path = field(&v, "path_length_m");
+    close(field(&v, "flight_time_s"), path / 6.875 + 10.0 * 10.0, 1e-9);
+    assert!(field(&v, "flight_time_s") > field(&calm, "flight_time_s"));
+}
+
+#[test]
+fn a_crosswind_by_hand() {
+    // 8 m/s through the air heading north, 4 m/s from the east: the crab is asin(4/8) = 30°, the
+    // nose to the right (east, into the wind) on the out leg, and both legs make
+    // √(8² − 4²) = 6.93 m/s over the ground.
+    let v = report_of(&demo_with("speed=8&wind=4&wdir=90"));
+    close(field(&v, "crab_deg"), 30.0, 1e-9);
+    close(field(&v, "ground_speed_out_mps"), 48f64.sqrt(), 1e-12);
+    close(field(&v, "ground_speed_back_mps"), 48f64.sqrt(), 1e-12);
+    // A crosswind as fast as the aircraft: no heading holds the line, and the plan says so.
+    let v = report_of(&demo_with("speed=8&wind=9&wdir=90"));
+    assert!(v["flight_time_s"].is_null() && v["trigger_s"].is_null());
+    let notes = v["survey_notes"].to_string();
+    assert!(notes.contains("no heading holds the line"), "{notes}");
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig::with_cases(256))]
+
+    /// Raising the highest ground never raises the least overlaps or the finest GSD.
+    #[test]
+    fn overlaps_never_rise_as_the_relief_grows(low in -50.0f64..0.0, high in 0.0f64..70.0, more in 0.0f64..9.0) {
+        let a = report_of(&demo_with(&format!("relief={low},{high}")));
+        let b = report_of(&demo_with(&format!("relief={low},{}", high + more)));
+        for key in ["front_min_pct", "side_min_pct", "gsd_min_m"] {
+            prop_assert!(field(&b, key) <= field(&a, key) + 1e-12, "{key}: {} then {}", a[key], b[key]);
+        }
     }
 }

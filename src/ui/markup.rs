@@ -56,8 +56,3 @@ impl Markup {
         Html::from_html_unchecked(AttrValue::from(self.0))
     }
 }
-
-/// Markup that is fixed, as yew nodes.
-pub fn fixed(markup: &'static str) -> Html {
-    Html::from_html_unchecked(AttrValue::Static(markup))
-}

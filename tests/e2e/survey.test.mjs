@@ -166,3 +166,41 @@ test('the survey origin can be taken from the device position; a refusal is said
   assert.deepEqual(errors, []);
   await refused.close();
 });
+
+test('relief, wind and the block edges: typed in, shown as the report gives them, drawn and warned of', async () => {
+  const page = await app.open(FIELD);
+  // The edges with no relief or wind: the extra photos beyond each end and the margin drawn.
+  let rep = await showsReport(page);
+  assert.equal(rep.extra_photos_per_end, 2);
+  assert.equal(await page.locator('#survey [data-key=extra_photos_per_end]').textContent(), '2');
+  assert.equal(await page.locator('#survey svg.survey-map rect.margin').count(), 1, 'the full-overlap margin is drawn');
+  assert.equal(await page.locator('#survey [data-key=gsd_min_m]').count(), 0, 'no relief figures without a relief');
+  // A 20 m hill: the least overlaps fall and a warning says what restores them.
+  await typeInto(page, '#in-relief', '-5,20');
+  await page.waitForFunction(() => new URLSearchParams(location.search).get('relief') === '-5,20');
+  await page.locator('#survey [data-key=front_min_pct]').waitFor();
+  rep = await showsReport(page);
+  assert.ok(rep.front_min_pct < 75 && rep.side_min_pct < 65, `${rep.front_min_pct} / ${rep.side_min_pct}`);
+  const notes = await page.locator('#survey .note').allTextContents();
+  assert.ok(notes.some((n) => /side overlap falls from 65 % .* Fly at 100 m above take-off/.test(n)), notes.join('\n'));
+  // A wind from the north-north-east: the legs' ground speeds and the crab angle.
+  await typeInto(page, '#in-wind', '5');
+  await typeInto(page, '#in-wdir', '30');
+  await page.waitForFunction(() => new URLSearchParams(location.search).get('wdir') === '30');
+  await page.locator('#survey [data-key=crab_deg]').waitFor();
+  rep = await showsReport(page);
+  assert.ok(rep.ground_speed_out_mps < 8 && rep.ground_speed_back_mps > 8, 'a headwind out, a tailwind back');
+  // The print sheet carries the wind and the relief.
+  await page.locator('main[data-settled="true"]').waitFor();
+  const sheet = await page.locator('.print-sheet').textContent();
+  assert.match(sheet, /Wind, ground speeds/);
+  assert.match(sheet, /Relief.*least overlap/);
+  // A span that is not two numbers is named beside its field with what it takes; nothing else is lost.
+  await typeInto(page, '#in-relief', '20');
+  const field = page.locator('.field:has(#in-relief)');
+  await field.locator('.error').waitFor();
+  assert.match(await field.locator('.error').textContent(), /Ground height under the block .*two numbers from -10000 to 10000/);
+  assert.equal(await page.inputValue('#in-wind'), '5');
+  assert.equal(await page.isHidden('#crash-notice'), true);
+  await page.context().close();
+});

@@ -52,6 +52,14 @@ pub enum Kind {
         get: fn(&Scenario) -> Option<CivilTime>,
         set: fn(&mut Scenario, CivilTime),
     },
+    /// Two numbers from `min` to `max`, lowest first, written `a,b` (the ground under a survey);
+    /// left out unless given.
+    Span {
+        min: f64,
+        max: f64,
+        get: fn(&Scenario) -> Option<(f64, f64)>,
+        set: fn(&mut Scenario, (f64, f64)),
+    },
     /// One of a list of words; `words[default]` when left out or not known (`None`: the scenario
     /// goes without it, and `unset` says what happens then).
     Choice {
@@ -238,6 +246,16 @@ const LIGHT: &[&str] = &[
     "overshoot",
     "niirs",
 ];
+/// Report fields that follow the wind: the smear on the fastest leg, and so the image quality.
+const WIND: &[&str] = &[
+    "motion_m",
+    "grd_m",
+    "rer_along",
+    "rer_across",
+    "rer",
+    "overshoot",
+    "niirs",
+];
 /// Report fields that follow the sensor's charge and noise.
 const SIGNAL: &[&str] = &["snr", "grd_m", "rer_along", "rer_across", "rer", "overshoot", "niirs"];
 /// The image-quality figures of the imaging chain.
@@ -379,7 +397,7 @@ pub const INPUTS: &[Input] = &[
     number("cexp", "Cn² height exponent", "", (-3.0, 0.0), plain!(cn2_exponent))
         .or(-4.0 / 3.0)
         .feeds(TURBULENCE),
-    number("speed", "Ground speed", "m/s", (0.0, 150.0), plain!(speed_mps))
+    number("speed", "Speed", "m/s", (0.0, 150.0), plain!(speed_mps))
         .or(0.0)
         .imperial(MPH)
         .feeds(&["motion_m"]),
@@ -570,6 +588,31 @@ pub const INPUTS: &[Input] = &[
     )
     .or(0.0),
     Input {
+        key: "relief",
+        label: "Ground height under the block",
+        unit: "m from take-off",
+        kind: Kind::Span {
+            min: -10_000.0,
+            max: 10_000.0,
+            get: |s| s.survey.relief_m,
+            set: |s, v| s.survey.relief_m = Some(v),
+        },
+        ..INPUTS_BASE
+    },
+    number("wind", "Wind speed", "m/s", (0.0, 60.0), plain!(survey.wind_mps))
+        .or(0.0)
+        .imperial(MPH)
+        .feeds(WIND),
+    number(
+        "wdir",
+        "Wind from",
+        "degrees from north",
+        (0.0, 360.0),
+        plain!(survey.wind_from_deg),
+    )
+    .or(0.0)
+    .feeds(WIND),
+    Input {
         key: "when",
         label: "Date and time",
         unit: "",
@@ -755,12 +798,23 @@ impl Input {
             },
             Kind::Text { max_chars, .. } => format!("text of at most {max_chars} characters"),
             Kind::Moment { .. } => WHEN_FORMAT.to_string(),
+            Kind::Span { min, max, .. } => format!(
+                "two numbers from {} to {} {}, lowest first, e.g. -5,25",
+                format_number(min),
+                format_number(max),
+                self.unit
+            ),
             Kind::Version => "1".to_string(),
         }
     }
 
-    /// Whether the key takes a number (and so has a field of its own on the page).
+    /// Whether the key takes a number or a span (and so has a field of its own on the page).
     pub fn is_number(&self) -> bool {
+        matches!(self.kind, Kind::Number { .. } | Kind::Span { .. })
+    }
+
+    /// Whether the key takes one number (not a span of two).
+    pub fn is_single(&self) -> bool {
         matches!(self.kind, Kind::Number { .. })
     }
 
@@ -772,7 +826,7 @@ impl Input {
     /// The accepted range of a number key, `(min, max)` in the link's unit.
     pub fn range(&self) -> Option<(f64, f64)> {
         match self.kind {
-            Kind::Number { min, max, .. } => Some((min, max)),
+            Kind::Number { min, max, .. } | Kind::Span { min, max, .. } => Some((min, max)),
             _ => None,
         }
     }
@@ -814,6 +868,7 @@ impl Input {
             Kind::Number { slot, .. } => (slot.get)(scenario).map(format_number),
             Kind::Choice { words, get, .. } => get(scenario).and_then(|i| words.get(i)).map(|w| w.to_string()),
             Kind::Moment { get, .. } => get(scenario).map(|t| write_when(&t)),
+            Kind::Span { get, .. } => get(scenario).map(|(a, b)| format!("{},{}", format_number(a), format_number(b))),
         }
     }
 
@@ -877,6 +932,24 @@ impl Input {
                     ),
                 ),
             },
+            (Kind::Span { min, max, set, .. }, Some(t)) => {
+                let parts: Vec<&str> = t.split(',').map(str::trim).collect();
+                let values: Vec<f64> = parts.iter().filter_map(|p| p.parse::<f64>().ok()).collect();
+                match values[..] {
+                    [a, b] if parts.len() == 2 && [a, b].iter().all(|v| (min..=max).contains(v)) => {
+                        set(scenario, (a.min(b), a.max(b)))
+                    }
+                    _ => error(
+                        input.key,
+                        format!(
+                            "{} '{}' is not usable: give {}; the ground is taken as level.",
+                            input.label,
+                            clip(t.trim(), 24),
+                            input.range_text()
+                        ),
+                    ),
+                }
+            }
             (Kind::Number { default, .. }, None) if input.required => error(
                 input.key,
                 format!(

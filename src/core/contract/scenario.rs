@@ -19,6 +19,7 @@ use crate::core::physics::light::sun::{CivilTime, Direction};
 use crate::core::physics::light::sun::{Spa, Sunlight};
 use crate::core::physics::target::CdModel;
 use crate::core::physics::turbulence::Profile;
+use crate::core::planning::ground::{wind_on_lines, WindInputs};
 use crate::core::planning::light::{lit, plan_light, Light, LightInputs, SunFix};
 use crate::core::planning::solve::{Axis, Need, TargetPlane};
 use crate::core::planning::survey::{SurveyInputs, SurveySettings};
@@ -362,6 +363,23 @@ impl Scenario {
         plan_light(&self.light_inputs_with(sunlight))
     }
 
+    /// The speed over the ground whose smear the engine counts: the planned speed in still air;
+    /// in a wind, the ground speed on the faster leg of the survey lines (the worst smear), or the
+    /// planned speed when the lines cannot be flown in that wind (the survey says why).
+    pub fn ground_speed_mps(&self) -> f64 {
+        let s = &self.survey;
+        if s.wind_mps == 0.0 {
+            return self.speed_mps;
+        }
+        wind_on_lines(&WindInputs {
+            airspeed_mps: self.speed_mps,
+            wind_mps: s.wind_mps,
+            wind_from_deg: s.wind_from_deg,
+            heading_deg: s.heading_deg,
+        })
+        .map_or(self.speed_mps, |w| w.fastest_ground_speed_mps())
+    }
+
     /// The engine's setup with the typed exposure time and the assumed or typed SNR.
     pub fn unlit_setup(&self) -> Setup {
         Setup {
@@ -374,7 +392,7 @@ impl Scenario {
             wavelength_m: self.wavelength_nm * 1e-9,
             geometry: self.geometry(),
             profile: self.profile(),
-            speed_mps: self.speed_mps,
+            speed_mps: self.ground_speed_mps(),
             exposure_s: self.shutter_s,
             turn_rate_rad_s: self.turn_rate_deg_s.to_radians(),
             target_speed_mps: self.target_speed_mps,

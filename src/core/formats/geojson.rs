@@ -143,13 +143,21 @@ pub fn survey_geojson(inputs: &SurveyInputs, plan: &SurveyPlan, name: &str) -> O
     survey_geojson_checked(inputs, plan, name).ok()
 }
 
-/// Flight lines 1 to `count` as LineString features in flying order, each line's ends added to
+/// Flight lines 1 to `count` as LineString features in flying order, each reaching `extension`
+/// metres beyond both ends of the area (to the extra photos), each line's ends added to
 /// `positions` for the checks that follow.
-fn flight_lines(frame: &Frame, count: u64, spacing: f64, length: f64, positions: &mut Vec<[f64; 2]>) -> Vec<Value> {
+fn flight_lines(
+    frame: &Frame,
+    count: u64,
+    spacing: f64,
+    (length, extension): (f64, f64),
+    positions: &mut Vec<[f64; 2]>,
+) -> Vec<Value> {
     let mut features = Vec::new();
     for number in 1..=count {
-        let near = frame.across((number - 1) as f64 * spacing);
-        let far = frame.along(near, length);
+        let edge = frame.across((number - 1) as f64 * spacing);
+        let near = frame.along(edge, -extension);
+        let far = frame.along(edge, length + extension);
         let forward = flies_forward(number);
         let (start, end, azimuth) = if forward {
             (near, far, near.along_azimuth)
@@ -264,7 +272,10 @@ pub fn survey_geojson_checked(inputs: &SurveyInputs, plan: &SurveyPlan, name: &s
     // Nothing drawn lies farther from the origin than the diagonal of the area widened to the last
     // line; if a pole is as near as that, the area may hold or touch it.
     let reach_x = width.max(lines_exported.saturating_sub(1) as f64 * spacing.max(0.0));
-    let reach = reach_x.hypot(length);
+    // The lines reach their extra photos beyond both ends.
+    let extension = plan.extra_photos_per_end.map_or(0.0, |e| e as f64 * plan.base_m);
+    let extension = if extension.is_finite() { extension } else { 0.0 };
+    let reach = reach_x.hypot(length + extension) + extension;
     let pole = 90f64.copysign(lat0);
     let pole_distance: f64 = frame.geodesic.inverse(lat0, lon0, pole, lon0);
     if pole_distance.is_nan() || pole_distance <= reach * 1.01 + 1.0 {
@@ -280,7 +291,7 @@ pub fn survey_geojson_checked(inputs: &SurveyInputs, plan: &SurveyPlan, name: &s
 
     let mut features: Vec<Value> = Vec::new();
     let mut positions: Vec<[f64; 2]> = ring.clone();
-    let line_features = flight_lines(&frame, lines_exported, spacing, length, &mut positions);
+    let line_features = flight_lines(&frame, lines_exported, spacing, (length, extension), &mut positions);
 
     if positions.iter().flatten().any(|v| !v.is_finite()) {
         return Err(ExportProblem::NotFinite);

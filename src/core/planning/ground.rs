@@ -5,7 +5,21 @@
 //! finite figures in SI, or a typed reason (`Err`) with the figures that explain it; nothing
 //! here writes a sentence, and nothing panics.
 
-use crate::core::planning::survey::{flies_forward, OverlapSide, SurveyPlan, MAX_PHOTOS};
+/// The most photos a plan counts (per line and in total); beyond it the counts are withheld.
+pub const MAX_PHOTOS: u64 = 10_000_000;
+
+/// Which overlap a figure or a note is about.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum OverlapSide {
+    Front,
+    Side,
+}
+
+/// Whether flight line `number` (counted from 1) is flown along the heading: the lines are flown
+/// in a serpentine, line 1 along the heading, line 2 back, and so on.
+pub fn flies_forward(number: u64) -> bool {
+    number % 2 == 1
+}
 
 /// The front overlap a mapping orthomosaic needs at least, percent: the lower bound of the
 /// mapping class in `survey::overlap_guidance` (common practice for drone mapping: 75–80 %).
@@ -60,29 +74,6 @@ pub struct ReliefInputs {
     /// The distance flown between photos and between lines, as planned.
     pub base_m: f64,
     pub line_spacing_m: f64,
-}
-
-impl ReliefInputs {
-    /// The inputs for a survey plan flown at `height_m` above take-off with GSD `gsd_m` there,
-    /// over ground from `lowest_ground_m` to `highest_ground_m` relative to take-off.
-    pub fn from_plan(
-        plan: &SurveyPlan,
-        height_m: f64,
-        gsd_m: f64,
-        lowest_ground_m: f64,
-        highest_ground_m: f64,
-    ) -> Self {
-        ReliefInputs {
-            height_m,
-            lowest_ground_m,
-            highest_ground_m,
-            gsd_m,
-            footprint_across_m: plan.footprint_across_m,
-            footprint_along_m: plan.footprint_along_m,
-            base_m: plan.base_m,
-            line_spacing_m: plan.line_spacing_m,
-        }
-    }
 }
 
 /// Which input of the relief cannot be used, or why the plan cannot be flown over it.
@@ -441,22 +432,6 @@ pub struct EdgeInputs {
     pub extra_photos_per_end: u64,
 }
 
-impl EdgeInputs {
-    /// The inputs from a survey plan with counts, and `extra_photos_per_end`; `None` when the
-    /// plan has no counts.
-    pub fn from_plan(plan: &SurveyPlan, extra_photos_per_end: u64) -> Option<EdgeInputs> {
-        Some(EdgeInputs {
-            footprint_across_m: plan.footprint_across_m,
-            footprint_along_m: plan.footprint_along_m,
-            base_m: plan.base_m,
-            line_spacing_m: plan.line_spacing_m,
-            lines: plan.lines?,
-            photos_per_line: plan.photos_per_line?,
-            extra_photos_per_end,
-        })
-    }
-}
-
 /// The edges of the block: the photos beyond the ends of the lines, and how far beyond the area
 /// the photos must reach for its edge to have the same overlap as its middle.
 #[derive(Clone, Copy, Debug, PartialEq)]
@@ -488,6 +463,14 @@ pub enum EdgeUnusable {
     TooManyPhotos,
 }
 
+/// The photos `base_m` apart beyond an end of a line that reach half a footprint `footprint_m`
+/// beyond it, ceil(footprint/(2·base)): then the area's end lies in as many photos as its middle
+/// (with 60 % front overlap, 2, as the worked example adds at each end). `None` when the inputs
+/// are not positive or the count passes [`MAX_PHOTOS`].
+pub fn photos_to_margin(footprint_m: f64, base_m: f64) -> Option<u64> {
+    ceil_count(0.5 * positive(footprint_m)? / positive(base_m)?, MAX_PHOTOS)
+}
+
 /// The block's edges: the lines' photo counts with the extras at each end (as the worked example
 /// adds them) and the margins that full overlap at the area's edge needs.
 pub fn block_edges(inputs: &EdgeInputs) -> Result<BlockEdges, EdgeUnusable> {
@@ -512,7 +495,8 @@ pub fn block_edges(inputs: &EdgeInputs) -> Result<BlockEdges, EdgeUnusable> {
         .ok_or(EdgeUnusable::TooManyPhotos)?;
     let margin_along = 0.5 * inputs.footprint_along_m;
     let margin_across = 0.5 * inputs.footprint_across_m;
-    let photos_for_margin = ceil_count(margin_along / inputs.base_m, MAX_PHOTOS).ok_or(EdgeUnusable::TooManyPhotos)?;
+    let photos_for_margin =
+        photos_to_margin(inputs.footprint_along_m, inputs.base_m).ok_or(EdgeUnusable::TooManyPhotos)?;
     let lines_for_margin =
         ceil_count(margin_across / inputs.line_spacing_m, MAX_PHOTOS).ok_or(EdgeUnusable::TooManyPhotos)?;
     let extension_m = inputs.extra_photos_per_end as f64 * inputs.base_m;

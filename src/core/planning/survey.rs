@@ -10,12 +10,15 @@
 
 use serde::Serialize;
 
+pub use crate::core::planning::ground::{flies_forward, OverlapSide, MAX_PHOTOS};
+use crate::core::planning::ground::{
+    photos_to_margin, plan_over_relief, wind_on_lines, EdgeInputs, ReliefInputs, ReliefPlan, ReliefUnusable,
+    WindInputs, WindLimit, WindOnLines,
+};
+
 /// The most flight lines a plan counts; beyond it the counts are withheld with a note, since such
 /// a plan is a mistake in the inputs rather than a survey anyone will fly.
 pub const MAX_LINES: u64 = 100_000;
-
-/// The most photos a plan counts (per line and in total); beyond it the counts are withheld.
-pub const MAX_PHOTOS: u64 = 10_000_000;
 
 /// The most flight lines the layout diagram carries; the rest are counted as omitted.
 pub const MAX_DRAWN_LINES: u64 = 60;
@@ -42,6 +45,13 @@ pub struct SurveySettings {
     pub latitude_deg: Option<f64>,
     pub longitude_deg: Option<f64>,
     pub heading_deg: f64,
+    /// The lowest and highest ground under the block relative to the take-off point (`relief`);
+    /// `None` for level ground at take-off height.
+    pub relief_m: Option<(f64, f64)>,
+    /// The wind speed and the direction it blows from, degrees from north (`wind`, `wdir`); with
+    /// a wind, the planned speed is the speed through the air.
+    pub wind_mps: f64,
+    pub wind_from_deg: f64,
 }
 
 /// What the survey needs: its settings, and what it takes from the camera, the lens and the view.
@@ -59,13 +69,6 @@ pub struct SurveyInputs {
     pub speed_mps: f64,
     pub shutter_s: f64,
     pub settings: SurveySettings,
-}
-
-/// Which overlap a note is about.
-#[derive(Clone, Copy, Debug, PartialEq, Eq)]
-pub enum OverlapSide {
-    Front,
-    Side,
 }
 
 /// Which side of the area a note is about.
@@ -106,6 +109,10 @@ pub enum SurveyNote {
     NoEndurance,
     /// What the flight time leaves out (take-off, transit, landing).
     FlightTimeCovers,
+    /// The lines cannot be flown in the wind, or the wind cannot be used.
+    Wind(WindLimit),
+    /// The relief cannot be used, or the ground reaches the flight height.
+    Relief(ReliefUnusable),
 }
 
 /// A speed that the plan exceeds, with what the words need to say why and what to change.
@@ -202,14 +209,23 @@ pub struct SurveyPlan {
     pub trigger_s: Option<f64>,
     /// Flight lines, ceil(area width/S) + 1 (resolution-model §7).
     pub lines: Option<u64>,
-    /// Photos on each line, ceil(area length/B) + 1 (resolution-model §7).
+    /// Photos taken beyond each end of every line, ceil(footprint along/(2·B)), so that the
+    /// area's ends lie in as many photos as its middle (two with 60 % front overlap, as the worked
+    /// example in resolution-model §7 adds).
+    pub extra_photos_per_end: Option<u64>,
+    /// Photos on each line, ceil(area length/B) + 1 + the extras at both ends (resolution-model §7).
     pub photos_per_line: Option<u64>,
     /// Photos in the whole survey, lines × photos per line.
     pub photos: Option<u64>,
-    /// Distance flown over the area: lines·length + (lines − 1)·S, the turns counted as straight
-    /// hops between neighbouring lines.
+    /// The margin beyond the area's ends and sides that full overlap needs: half a footprint
+    /// along and across. A point lies in every photo whose centre is within half a footprint.
+    pub margin_along_m: f64,
+    pub margin_across_m: f64,
+    /// Distance flown: lines·(length + 2·extras·B) + (lines − 1)·S, each line reaching its extra
+    /// photos, the turns counted as straight hops between neighbouring lines.
     pub path_length_m: Option<f64>,
-    /// Time over the area: path/speed + (lines − 1)·time per turn.
+    /// Time over the area: path/speed + (lines − 1)·time per turn; in a wind, the speed is the
+    /// mean over an out-and-back pair of legs, 2/(1/v_out + 1/v_back).
     pub flight_time_s: Option<f64>,
     /// Batteries (or flights) the flight time needs: ceil(flight time / usable time per battery).
     pub batteries: Option<u64>,
@@ -221,7 +237,28 @@ pub struct SurveyPlan {
     /// The ground speed at which photos are due as fast as the camera can take them: B/shortest
     /// interval; `None` when the camera's interval is 0 (not limiting).
     pub max_speed_trigger_mps: Option<f64>,
-    /// The limits that the planned speed exceeds.
+    /// In a wind: the ground speed on the legs flown along the heading (odd lines) and back, and
+    /// the crab angle that holds the line, degrees, positive with the nose right of the line on
+    /// the out leg (the wind triangle; common practice). `None` without wind.
+    pub ground_speed_out_mps: Option<f64>,
+    pub ground_speed_back_mps: Option<f64>,
+    pub crab_deg: Option<f64>,
+    /// Over the relief: the finest and coarsest GSD (at the highest and lowest ground) and the
+    /// least front and side overlaps (at the highest ground), percent. `None` without relief.
+    pub gsd_min_m: Option<f64>,
+    pub gsd_max_m: Option<f64>,
+    pub front_min_pct: Option<f64>,
+    pub side_min_pct: Option<f64>,
+    /// The height above take-off that keeps the planned overlaps over the highest ground (h +
+    /// highest ground); `None` when no ground is above take-off.
+    pub relief_height_m: Option<f64>,
+    /// The relief's figures and warnings, when a relief is given.
+    #[serde(skip)]
+    pub relief: Option<ReliefPlan>,
+    /// The wind on the lines, when a wind is given and the lines can be flown in it.
+    #[serde(skip)]
+    pub wind: Option<WindOnLines>,
+    /// The limits that the planned speed exceeds (in a wind, on the fastest leg).
     #[serde(skip)]
     pub speed_flags: Vec<SpeedFlag>,
     /// Where the overlaps sit against common practice.
@@ -337,11 +374,13 @@ fn area(inputs: &SurveyInputs, notes: &mut Vec<SurveyNote>) -> (Option<f64>, Opt
     )
 }
 
-/// Lines, photos per line and photos in all, each withheld (with a note) above its cap.
+/// Lines, photos per line (with `extras` beyond each end) and photos in all, each withheld (with
+/// a note) above its cap.
 fn counts(
     width: Option<f64>,
     length: Option<f64>,
     sp: &Spacing,
+    extras: u64,
     notes: &mut Vec<SurveyNote>,
 ) -> (Option<u64>, Option<u64>, Option<u64>) {
     // Stations along `extent` at `step`, or a note (`too_many`) when there are more than `cap`.
@@ -356,9 +395,12 @@ fn counts(
     let lines = capped(width, sp.line_spacing_m, MAX_LINES, |width_m, spacing_m| {
         SurveyNote::TooManyLines { width_m, spacing_m }
     });
-    let photos_per_line = capped(length, sp.base_m, MAX_PHOTOS, |length_m, base_m| {
+    // The extras are at most MAX_PHOTOS each (photos_to_margin's cap), so the sum cannot overflow.
+    let cap = MAX_PHOTOS.saturating_sub(2 * extras);
+    let photos_per_line = capped(length, sp.base_m, cap, |length_m, base_m| {
         SurveyNote::TooManyPhotosPerLine { length_m, base_m }
-    });
+    })
+    .map(|inner| inner + 2 * extras);
     let photos = match (lines, photos_per_line) {
         (Some(lines), Some(photos_per_line)) => {
             let total = lines.checked_mul(photos_per_line).filter(|&t| t <= MAX_PHOTOS);
@@ -375,12 +417,12 @@ fn counts(
 /// The flight time over the area and the batteries it needs, with notes on what is left out.
 fn timing(
     inputs: &SurveyInputs,
+    speed: Option<f64>,
     path_length_m: Option<f64>,
     lines: Option<u64>,
     notes: &mut Vec<SurveyNote>,
 ) -> (Option<f64>, Option<u64>) {
-    let speed = positive(inputs.speed_mps);
-    if speed.is_none() {
+    if positive(inputs.speed_mps).is_none() {
         notes.push(SurveyNote::NoSpeed);
     }
     let turn_s = if inputs.settings.turn_s.is_finite() {
@@ -423,14 +465,19 @@ fn timing(
 /// The speeds that blur and the camera's interval allow, and the flags the planned speed raises.
 /// Blur: smear = speed × exposure within the budget (resolution-model §4). Trigger: a photo every
 /// B metres cannot come faster than the camera's shortest interval.
-fn speed_limits(inputs: &SurveyInputs, base_m: f64, due_s: Option<f64>) -> (Option<f64>, Option<f64>, Vec<SpeedFlag>) {
+fn speed_limits(
+    inputs: &SurveyInputs,
+    ground_speed: Option<f64>,
+    base_m: f64,
+    due_s: Option<f64>,
+) -> (Option<f64>, Option<f64>, Vec<SpeedFlag>) {
     let budget_m = inputs.settings.blur_budget_px * inputs.gsd_m;
     let max_blur = positive(budget_m).and_then(|b| ratio(b, inputs.shutter_s));
     let max_trigger = positive(base_m).and_then(|b| ratio(b, inputs.settings.trigger_s));
     let mut flags = Vec::new();
     // A speed a hair above its limit through rounding is at the limit, not above it.
     let exceeds = |v: f64, limit: f64| v > limit * (1.0 + 1e-9);
-    if let Some(speed_mps) = positive(inputs.speed_mps) {
+    if let Some(speed_mps) = ground_speed {
         if let Some(limit_mps) = max_blur.filter(|l| exceeds(speed_mps, *l)) {
             flags.push(SpeedFlag::Blur {
                 speed_mps,
@@ -451,31 +498,78 @@ fn speed_limits(inputs: &SurveyInputs, base_m: f64, due_s: Option<f64>) -> (Opti
     (max_blur, max_trigger, flags)
 }
 
+/// The wind on the lines when a wind is given (`None` in still air), with a note when the lines
+/// cannot be flown in it.
+fn wind(inputs: &SurveyInputs, notes: &mut Vec<SurveyNote>) -> Option<Result<WindOnLines, WindLimit>> {
+    let s = &inputs.settings;
+    if s.wind_mps == 0.0 {
+        return None;
+    }
+    let result = wind_on_lines(&WindInputs {
+        airspeed_mps: inputs.speed_mps,
+        wind_mps: s.wind_mps,
+        wind_from_deg: s.wind_from_deg,
+        heading_deg: s.heading_deg,
+    });
+    if let Err(limit) = result {
+        notes.push(SurveyNote::Wind(limit));
+    }
+    Some(result)
+}
+
+/// The survey over the relief when one is given, with a note when it cannot be used.
+fn relief(inputs: &SurveyInputs, sp: &Spacing, notes: &mut Vec<SurveyNote>) -> Option<ReliefPlan> {
+    let (lowest_ground_m, highest_ground_m) = inputs.settings.relief_m?;
+    let result = plan_over_relief(&ReliefInputs {
+        height_m: inputs.height_m,
+        lowest_ground_m,
+        highest_ground_m,
+        gsd_m: inputs.gsd_m,
+        footprint_across_m: sp.across_m,
+        footprint_along_m: sp.along_m,
+        base_m: sp.base_m,
+        line_spacing_m: sp.line_spacing_m,
+    });
+    result.map_err(|reason| notes.push(SurveyNote::Relief(reason))).ok()
+}
+
 /// Lays out the survey for any inputs: see [`SurveyPlan`] for each figure.
 pub fn plan_survey(inputs: &SurveyInputs) -> SurveyPlan {
     let mut notes: Vec<SurveyNote> = Vec::new();
     let sp = spacing(inputs, &mut notes);
-    let trigger_s = positive(inputs.speed_mps)
-        .and_then(|v| ratio(sp.base_m, v))
-        .filter(|_| sp.base_m > 0.0);
+    let wind = wind(inputs, &mut notes);
+    // The ground speed on the fastest leg (for the smear and the trigger interval) and the mean
+    // over a pair of legs (for the time): the planned speed in still air, none when the lines
+    // cannot be flown in the wind.
+    let (fastest, mean) = match wind {
+        Some(Ok(w)) => (Some(w.fastest_ground_speed_mps()), Some(w.pair_ground_speed_mps())),
+        Some(Err(_)) => (None, None),
+        None => (positive(inputs.speed_mps), positive(inputs.speed_mps)),
+    };
+    let wind = wind.and_then(Result::ok);
+    let trigger_s = fastest.and_then(|v| ratio(sp.base_m, v)).filter(|_| sp.base_m > 0.0);
     let (width, length) = area(inputs, &mut notes);
-    let (lines, photos_per_line, photos) = counts(width, length, &sp, &mut notes);
-    // Lines·length + (lines − 1)·S: the turns counted as straight hops between neighbouring lines.
-    let path_length_m = match (lines, length) {
-        (Some(n), Some(l)) => {
+    let extras = photos_to_margin(sp.along_m, sp.base_m);
+    let (lines, photos_per_line, photos) = counts(width, length, &sp, extras.unwrap_or(0), &mut notes);
+    // Lines·(length + 2·extras·B) + (lines − 1)·S: every line reaches its extra photos, the turns
+    // counted as straight hops between neighbouring lines.
+    let path_length_m = match (lines, length, extras) {
+        (Some(n), Some(l), Some(e)) => {
             let n = n as f64;
-            Some(n * l + (n - 1.0) * sp.line_spacing_m).filter(|p| p.is_finite())
+            let line = l + 2.0 * e as f64 * sp.base_m;
+            Some(n * line + (n - 1.0) * sp.line_spacing_m).filter(|p| p.is_finite())
         }
         _ => None,
     };
-    let (flight_time_s, batteries) = timing(inputs, path_length_m, lines, &mut notes);
+    let (flight_time_s, batteries) = timing(inputs, mean, path_length_m, lines, &mut notes);
+    let relief = relief(inputs, &sp, &mut notes);
     let storage_mb = match photos {
         Some(p) if inputs.settings.photo_mb.is_finite() && inputs.settings.photo_mb >= 0.0 => {
             Some(p as f64 * inputs.settings.photo_mb).filter(|s| s.is_finite())
         }
         _ => None,
     };
-    let (max_speed_blur_mps, max_speed_trigger_mps, speed_flags) = speed_limits(inputs, sp.base_m, trigger_s);
+    let (max_speed_blur_mps, max_speed_trigger_mps, speed_flags) = speed_limits(inputs, fastest, sp.base_m, trigger_s);
     SurveyPlan {
         footprint_across_m: sp.across_m,
         footprint_along_m: sp.along_m,
@@ -483,14 +577,27 @@ pub fn plan_survey(inputs: &SurveyInputs) -> SurveyPlan {
         line_spacing_m: sp.line_spacing_m,
         trigger_s,
         lines,
+        extra_photos_per_end: extras.filter(|_| photos_per_line.is_some()),
         photos_per_line,
         photos,
+        margin_along_m: 0.5 * sp.along_m,
+        margin_across_m: 0.5 * sp.across_m,
         path_length_m,
         flight_time_s,
         batteries,
         storage_mb,
         max_speed_blur_mps,
         max_speed_trigger_mps,
+        ground_speed_out_mps: wind.map(|w| w.out.ground_speed_mps),
+        ground_speed_back_mps: wind.map(|w| w.back.ground_speed_mps),
+        crab_deg: wind.map(|w| w.out.crab_rad.to_degrees()),
+        gsd_min_m: relief.as_ref().map(|r| r.gsd_min_m),
+        gsd_max_m: relief.as_ref().map(|r| r.gsd_max_m),
+        front_min_pct: relief.as_ref().map(|r| r.front_min_pct),
+        side_min_pct: relief.as_ref().map(|r| r.side_min_pct),
+        relief_height_m: relief.as_ref().and_then(|r| r.restoring_height_m),
+        relief,
+        wind,
         speed_flags,
         overlap: overlap_guidance(inputs.settings.front_overlap_pct, inputs.settings.side_overlap_pct),
         notes,
@@ -519,12 +626,6 @@ pub fn overlap_guidance(front_pct: f64, side_pct: f64) -> OverlapAdvice {
         front_pct,
         side_pct,
     }
-}
-
-/// Whether flight line `number` (counted from 1) is flown along the heading: the lines are flown
-/// in a serpentine, line 1 along the heading, line 2 back, and so on.
-pub fn flies_forward(number: u64) -> bool {
-    number % 2 == 1
 }
 
 /// A point in the layout's local metres: x across the lines, y along them, origin at the area's
@@ -608,6 +709,9 @@ pub struct LayoutFootprint {
 pub struct Layout {
     /// The survey area, from (0, 0) to (width, length).
     pub area: Rect,
+    /// The area grown by the margin that full overlap needs: half a footprint beyond each end
+    /// and each side.
+    pub margin: Rect,
     /// The first flight lines in flying order, at most [`MAX_DRAWN_LINES`].
     pub lines: Vec<LayoutLine>,
     /// All the plan's lines.
@@ -624,8 +728,9 @@ pub struct Layout {
 /// The layout diagram of a plan, or `None` when the plan has no counts (no area, or counts
 /// withheld). Line k lies at x = (k − 1)·S: line 1 runs along the area's first edge and the last
 /// line lies on the far edge or less than one spacing beyond it, as the count ceil(W/S) + 1
-/// implies. Every line spans y = 0 to the area length, as the path length counts it; photos are
-/// taken at y = 0, B, 2B, … on every line, so neighbouring lines' photos sit side by side.
+/// implies. Every line spans y = −e·B to the area length + e·B with e extra photos at each end,
+/// as the path length counts it; photos are taken at y = −e·B, (1 − e)·B, … on every line, so
+/// neighbouring lines' photos sit side by side.
 pub fn layout(plan: &SurveyPlan, inputs: &SurveyInputs) -> Option<Layout> {
     let width = inputs.settings.area_width_m.filter(|w| w.is_finite() && *w >= 0.0)?;
     let length = inputs.settings.area_length_m.filter(|l| l.is_finite() && *l >= 0.0)?;
@@ -635,12 +740,19 @@ pub fn layout(plan: &SurveyPlan, inputs: &SurveyInputs) -> Option<Layout> {
     let base = positive(plan.base_m)?;
     let across = positive(plan.footprint_across_m)?;
     let along = positive(plan.footprint_along_m)?;
+    let extension = plan.extra_photos_per_end? as f64 * base;
 
     let drawn = lines_total.min(MAX_DRAWN_LINES);
     let lines: Vec<LayoutLine> = (1..=drawn)
         .map(|number| {
             let x = (number - 1) as f64 * spacing;
-            let (near, far) = (Point { x, y: 0.0 }, Point { x, y: length });
+            let (near, far) = (
+                Point { x, y: -extension },
+                Point {
+                    x,
+                    y: length + extension,
+                },
+            );
             let forward = flies_forward(number);
             let (start, end) = if forward { (near, far) } else { (far, near) };
             LayoutLine {
@@ -656,7 +768,7 @@ pub fn layout(plan: &SurveyPlan, inputs: &SurveyInputs) -> Option<Layout> {
         .map(|photo| {
             let centre = Point {
                 x: 0.0,
-                y: (photo - 1) as f64 * base,
+                y: (photo - 1) as f64 * base - extension,
             };
             LayoutFootprint {
                 line: 1,
@@ -667,8 +779,11 @@ pub fn layout(plan: &SurveyPlan, inputs: &SurveyInputs) -> Option<Layout> {
         })
         .collect();
     if lines_total >= 2 {
-        // Line 2 flies back, so its photo at y = 0 is the last it takes.
-        let centre = Point { x: spacing, y: 0.0 };
+        // Line 2 flies back, so its photo nearest y = 0 is the last it takes.
+        let centre = Point {
+            x: spacing,
+            y: -extension,
+        };
         footprints.push(LayoutFootprint {
             line: 2,
             photo: if flies_forward(2) { 1 } else { photos_per_line },
@@ -685,20 +800,71 @@ pub fn layout(plan: &SurveyPlan, inputs: &SurveyInputs) -> Option<Layout> {
     };
     let lines_extent = Rect {
         x: 0.0,
-        y: 0.0,
+        y: -extension,
         width: (drawn.max(1) - 1) as f64 * spacing,
-        height: length,
+        height: length + 2.0 * extension,
     };
-    let bounds = footprints.iter().fold(area.union(lines_extent), |b, f| b.union(f.rect));
+    let margin = Rect {
+        x: -plan.margin_across_m,
+        y: -plan.margin_along_m,
+        width: width + 2.0 * plan.margin_across_m,
+        height: length + 2.0 * plan.margin_along_m,
+    };
+    let bounds = footprints
+        .iter()
+        .fold(margin.union(lines_extent), |b, f| b.union(f.rect));
     let finite = [bounds.x, bounds.y, bounds.width, bounds.height]
         .iter()
         .all(|v| v.is_finite());
     finite.then_some(Layout {
         area,
+        margin,
         lines,
         lines_total,
         lines_omitted: lines_total - drawn,
         footprints,
         bounds,
     })
+}
+
+impl ReliefInputs {
+    /// The inputs for a survey plan flown at `height_m` above take-off with GSD `gsd_m` there,
+    /// over ground from `lowest_ground_m` to `highest_ground_m` relative to take-off.
+    pub fn from_plan(
+        plan: &SurveyPlan,
+        height_m: f64,
+        gsd_m: f64,
+        lowest_ground_m: f64,
+        highest_ground_m: f64,
+    ) -> Self {
+        ReliefInputs {
+            height_m,
+            lowest_ground_m,
+            highest_ground_m,
+            gsd_m,
+            footprint_across_m: plan.footprint_across_m,
+            footprint_along_m: plan.footprint_along_m,
+            base_m: plan.base_m,
+            line_spacing_m: plan.line_spacing_m,
+        }
+    }
+}
+
+impl EdgeInputs {
+    /// The inputs from a survey plan with counts, and `extra_photos_per_end`; `None` when the
+    /// plan has no counts.
+    pub fn from_plan(plan: &SurveyPlan, extra_photos_per_end: u64) -> Option<EdgeInputs> {
+        Some(EdgeInputs {
+            footprint_across_m: plan.footprint_across_m,
+            footprint_along_m: plan.footprint_along_m,
+            base_m: plan.base_m,
+            line_spacing_m: plan.line_spacing_m,
+            lines: plan.lines?,
+            // The plan's photos per line hold its own extras; these are the photos between the ends.
+            photos_per_line: plan
+                .photos_per_line?
+                .saturating_sub(2 * plan.extra_photos_per_end.unwrap_or(0)),
+            extra_photos_per_end,
+        })
+    }
 }

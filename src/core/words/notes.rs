@@ -6,6 +6,7 @@ use crate::core::physics::engine::Limit;
 use crate::core::physics::optics::SamplingRegime;
 use crate::core::physics::target::{PeopleLevel, Task};
 use crate::core::planning::cautions::Caution;
+use crate::core::planning::ground::{Leg, OverlapNeed, ReliefNote, ReliefUnusable, WindLimit};
 use crate::core::planning::solve::{Axis, Need, Reach, TargetPlane};
 use crate::core::planning::survey::{
     AreaSide, OverlapAdvice, OverlapClass, OverlapSide, SpeedFlag, SurveyNote, SurveyPlan, MAX_LINES, MAX_PHOTOS,
@@ -425,6 +426,102 @@ pub fn survey_note(note: &SurveyNote, units: Units) -> String {
         SurveyNote::FlightTimeCovers => "The flight time covers the lines and the turns between them; take-off, \
                                          climb, transit to the area, battery changes and landing come on top."
             .to_string(),
+        SurveyNote::Wind(limit) => wind_limit(limit, units),
+        SurveyNote::Relief(reason) => relief_unusable(reason, units),
+    }
+}
+
+/// Why the lines cannot be flown in the wind, in words.
+fn wind_limit(limit: WindLimit, units: Units) -> String {
+    match limit {
+        WindLimit::NoAirspeed => "A wind is given but no speed through the air: give the planned speed (with a \
+                                  wind it is the speed through the air) for the ground speeds, times and smear."
+            .to_string(),
+        WindLimit::WindUnusable => "The wind speed or direction is not usable: the wind is left out.".to_string(),
+        WindLimit::CannotHoldLine {
+            across_mps,
+            airspeed_mps,
+        } => format!(
+            "The wind across the lines ({}) is as fast as the speed through the air ({}): no heading holds the \
+             line. Turn the lines into the wind, fly faster or wait for less wind.",
+            speed(across_mps, units),
+            speed(airspeed_mps, units)
+        ),
+        WindLimit::NoHeadway {
+            leg,
+            wind_mps,
+            airspeed_mps,
+        } => format!(
+            "Against a {} wind at {} through the air the {} leg makes no way over the ground. Fly faster, turn \
+             the lines across the wind or wait for less wind.",
+            speed(wind_mps, units),
+            speed(airspeed_mps, units),
+            match leg {
+                Leg::Out => "outbound",
+                Leg::Back => "return",
+            }
+        ),
+    }
+}
+
+/// Why the relief cannot be used, in words.
+fn relief_unusable(reason: ReliefUnusable, units: Units) -> String {
+    match reason {
+        ReliefUnusable::GroundReachesFlight {
+            highest_ground_m,
+            height_m,
+        } => format!(
+            "The highest ground ({} above take-off) reaches the flight height ({}): the aircraft would meet \
+             it. Fly higher than the highest ground with room to spare.",
+            length(highest_ground_m, units),
+            length(height_m, units)
+        ),
+        ReliefUnusable::NoOverlapPlanned => {
+            "With no overlap planned there is none for the relief to keep: the relief is left out.".to_string()
+        }
+        ReliefUnusable::Height { .. } | ReliefUnusable::Ground | ReliefUnusable::Layout => {
+            "The relief cannot be used with this layout: it is left out.".to_string()
+        }
+    }
+}
+
+/// A relief warning in words, with what restores the planned overlaps.
+pub fn relief_note(note: &ReliefNote, plan: &SurveyPlan, units: Units) -> String {
+    match *note {
+        ReliefNote::OverlapShort {
+            side,
+            least_pct,
+            planned_pct,
+            need,
+        } => {
+            let restore = match (plan.relief_height_m, &plan.relief) {
+                (Some(h), Some(r)) => format!(
+                    " Fly at {} above take-off, or keep the height and space photos {} apart and lines {} \
+                     apart, to keep {} % over the highest ground.",
+                    length(h, units),
+                    r.restoring_base_m.map_or_else(|| "—".into(), |b| length(b, units)),
+                    r.restoring_line_spacing_m
+                        .map_or_else(|| "—".into(), |b| length(b, units)),
+                    significant(planned_pct)
+                ),
+                _ => String::new(),
+            };
+            format!(
+                "Over the highest ground the {} overlap falls from {} % to {} %, below the {} % {}.{restore}",
+                match side {
+                    OverlapSide::Front => "front",
+                    OverlapSide::Side => "side",
+                },
+                significant(planned_pct),
+                significant(least_pct),
+                significant(need.pct(side)),
+                match need {
+                    OverlapNeed::Mapping => "that a mapping orthomosaic needs (common practice)",
+                    OverlapNeed::Minimum => "that any survey keeps at least (common practice)",
+                }
+            )
+        }
+        ReliefNote::GroundSwapped => "The lowest and highest ground were swapped into order.".to_string(),
     }
 }
 
@@ -494,6 +591,17 @@ pub fn survey_words(plan: &SurveyPlan, units: Units) -> SurveyWords {
             code: plan.overlap.class.code(),
             text: overlap(&plan.overlap),
         },
-        survey_notes: plan.notes.iter().map(|n| survey_note(n, units)).collect(),
+        survey_notes: {
+            let mut notes = Vec::new();
+            if let Some(relief) = &plan.relief {
+                for n in &relief.notes {
+                    notes.push(relief_note(n, plan, units));
+                }
+            }
+            for n in &plan.notes {
+                notes.push(survey_note(n, units));
+            }
+            notes
+        },
     }
 }

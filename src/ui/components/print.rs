@@ -10,9 +10,9 @@ use crate::core::words::format;
 use crate::core::words::light::{exposure_time, light_source, snr_source};
 use crate::core::words::notes;
 use crate::ui::browser;
-use crate::ui::components::chart::chart_svg;
-use crate::ui::components::survey::diagram;
-use crate::ui::markup::{fixed, Markup};
+use crate::ui::components::chart::chart_markup;
+use crate::ui::components::survey::diagram_markup;
+use crate::ui::markup::Markup;
 use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;
@@ -142,7 +142,7 @@ fn survey_rows(plan: &Plan) -> Vec<(&'static str, String)> {
     let or_dash = |v: Option<String>| v.unwrap_or_else(|| "—".into());
     let count = |n: Option<u64>| or_dash(n.map(|n| n.to_string()));
     let speed = |v: Option<f64>| or_dash(v.map(|v| format::speed(v, units)));
-    vec![
+    let mut rows = vec![
         (
             "Footprint",
             format!("{} × {}", len(survey.footprint_across_m), len(survey.footprint_along_m)),
@@ -162,7 +162,12 @@ fn survey_rows(plan: &Plan) -> Vec<(&'static str, String)> {
         ("Trigger interval", or_dash(survey.trigger_s.map(format::duration))),
         (
             "Lines, photos",
-            format!("{}, {}", count(survey.lines), count(survey.photos)),
+            format!(
+                "{}, {} ({} beyond each end of a line)",
+                count(survey.lines),
+                count(survey.photos),
+                count(survey.extra_photos_per_end)
+            ),
         ),
         (
             "Flight time, batteries",
@@ -180,7 +185,40 @@ fn survey_rows(plan: &Plan) -> Vec<(&'static str, String)> {
                 speed(survey.max_speed_trigger_mps)
             ),
         ),
-    ]
+    ];
+    // The wind's and the relief's rows only when they are given (the sheet stays on one page).
+    if let (Some(out), Some(back), Some(crab)) = (
+        survey.ground_speed_out_mps,
+        survey.ground_speed_back_mps,
+        survey.crab_deg,
+    ) {
+        rows.push((
+            "Wind, ground speeds",
+            format!(
+                "{} from {}°: out {}, back {}, crab {}°",
+                format::speed(s.survey.wind_mps, units),
+                format::significant(s.survey.wind_from_deg),
+                format::speed(out, units),
+                format::speed(back, units),
+                format::significant(crab)
+            ),
+        ));
+    }
+    if let (Some((low, high)), Some(fine), Some(coarse)) = (s.survey.relief_m, survey.gsd_min_m, survey.gsd_max_m) {
+        rows.push((
+            "Relief",
+            format!(
+                "ground {} to {}: GSD {} to {}, least overlap {} % front, {} % side",
+                len(low),
+                len(high),
+                len(fine),
+                len(coarse),
+                format::significant(survey.front_min_pct.unwrap_or(f64::NAN)),
+                format::significant(survey.side_min_pct.unwrap_or(f64::NAN))
+            ),
+        ));
+    }
+    rows
 }
 
 /// The resolution's rows: the four limits, the governing one marked, then all of them together and
@@ -222,21 +260,21 @@ fn resolution_rows(plan: &Plan) -> (Vec<(&'static str, String)>, Vec<Option<&'st
     (rows, classes)
 }
 
-/// Labelled rows as a table; `classes` gives the class of each row it names. The rows stay yew
-/// elements: HTML parsing would put them in a `tbody` that the page's own rows do not have.
-fn rows_table(rows: &[(&'static str, String)], classes: &[Option<&'static str>]) -> Html {
-    html! {
-        <table class="print-table">
-            { for rows.iter().enumerate().map(|(i, (k, v))| html! {
-                <tr class={classes!(classes.get(i).copied().flatten())}><th>{ *k }</th><td>{ v.clone() }</td></tr>
-            }) }
-        </table>
+/// Labelled rows as a table written into `m`; `classes` gives the class of each row it names.
+fn rows_table(m: &mut Markup, rows: &[(&'static str, String)], classes: &[Option<&'static str>]) {
+    m.tag("<table class=\"print-table\"><tbody>");
+    for (i, (k, v)) in rows.iter().enumerate() {
+        match classes.get(i).copied().flatten() {
+            Some(class) => m.tag(&format!("<tr class=\"{class}\"><th>")),
+            None => m.tag("<tr><th>"),
+        };
+        m.text(k).tag("</th><td>").text(v).tag("</td></tr>");
     }
+    m.tag("</tbody></table>");
 }
 
 /// The sheet's head: title, the scenario's name, the date printed and the QR code of its link.
-fn head(name: &str, date: &str, qr: Option<&QrSvg>) -> Html {
-    let mut m = Markup::default();
+fn head(m: &mut Markup, name: &str, date: &str, qr: Option<&QrSvg>) {
     m.tag("<header class=\"print-head\"><div><h1>Flight plan — Sharpfield</h1><p class=\"print-name\">")
         .text(if name.is_empty() { "Untitled scenario" } else { name })
         .tag("</p><p>Printed ")
@@ -257,7 +295,6 @@ fn head(name: &str, date: &str, qr: Option<&QrSvg>) -> Html {
             .tag("\" class=\"qr-dark\"></path></svg>");
     }
     m.tag("</header>");
-    m.html()
 }
 
 /// The fields a person fills in by hand.
@@ -268,9 +305,8 @@ const SIGN_OFF: &str = "<h2>Sign-off</h2><div class=\"signoff\">\
     <p>People nearby informed<span class=\"blank\"></span></p>\
     <p>Signature<span class=\"blank\"></span></p></div>";
 
-/// The printed plan. Its text is written as HTML (`ui::markup`), which costs far less code than
-/// yew elements; the chart and the survey's drawing are the screen's own, and the tables stay yew
-/// elements (see `rows_table`).
+/// The printed plan, written as HTML text (`ui::markup`), which costs far less code than yew
+/// elements; the chart and the survey's drawing are the screen's own.
 #[function_component(PrintSheet)]
 pub fn print_sheet(props: &PrintProps) -> Html {
     let plan = &props.state.plan;
@@ -286,15 +322,17 @@ pub fn print_sheet(props: &PrintProps) -> Html {
             None => "No required resolution was set.".to_string(),
         },
     };
-    let diagram_html = plan
-        .layout
-        .as_ref()
-        .map(|l| diagram(l, units, "print"))
-        .unwrap_or_default();
     let (resolution, classes) = resolution_rows(plan);
-    let mut middle = Markup::default();
-    middle
-        .tag("<p>")
+    let mut m = Markup::default();
+    m.tag(r#"<section class="print-sheet" aria-hidden="true">"#);
+    head(&mut m, &s.name, &date, props.qr.as_ref().as_ref());
+    m.tag(r#"<div class="print-grid"><div><h2>Inputs</h2>"#);
+    rows_table(&mut m, &input_rows(plan), &[]);
+    m.tag("<h2>Resolution</h2>");
+    rows_table(&mut m, &resolution, &classes);
+    m.tag("</div><div>");
+    chart_markup(&mut m, &props.chart, "The four limits");
+    m.tag("</div></div><p>")
         .text(&format!(
             "{} governs at {}. {}",
             notes::limit_title(r.governing),
@@ -303,37 +341,31 @@ pub fn print_sheet(props: &PrintProps) -> Html {
         ))
         .tag("</p><p>")
         .text(&reach)
-        .tag("</p>");
-    let mut end = Markup::default();
-    end.tag("<h2>Cautions</h2><ul class=\"print-cautions\">");
+        .tag(r#"</p><div class="print-grid"><div><h2>Survey</h2>"#);
+    rows_table(&mut m, &survey_rows(plan), &[]);
+    m.tag(r#"</div><div class="print-diagram">"#);
+    if let Some(l) = &plan.layout {
+        diagram_markup(&mut m, l, units, "print");
+    }
+    m.tag("</div></div><h2>Cautions</h2><ul class=\"print-cautions\">");
     for c in &r.cautions {
-        end.tag("<li>").text(&c.text).tag("</li>");
+        m.tag("<li>").text(&c.text).tag("</li>");
     }
     for n in &r.light_notes {
-        end.tag("<li>").text(&n.text).tag("</li>");
+        m.tag("<li>").text(&n.text).tag("</li>");
     }
-    end.tag("</ul>").tag(SIGN_OFF);
-    html! {
-        <section class="print-sheet" aria-hidden="true">
-            { head(&s.name, &date, props.qr.as_ref().as_ref()) }
-            <div class="print-grid">
-                <div>
-                    { fixed("<h2>Inputs</h2>") }
-                    { rows_table(&input_rows(plan), &[]) }
-                    { fixed("<h2>Resolution</h2>") }
-                    { rows_table(&resolution, &classes) }
-                </div>
-                <div>{ chart_svg(&props.chart, "The four limits") }</div>
-            </div>
-            { middle.html() }
-            <div class="print-grid">
-                <div>
-                    { fixed("<h2>Survey</h2>") }
-                    { rows_table(&survey_rows(plan), &[]) }
-                </div>
-                <div class="print-diagram">{ diagram_html }</div>
-            </div>
-            { end.html() }
-        </section>
+    // What the survey warns of: a speed too fast for the blur or the camera, overlap lost over
+    // the relief.
+    for f in &r.survey_words.speed_flags {
+        m.tag("<li>").text(&format!("{} {}", f.reason, f.change)).tag("</li>");
     }
+    if let Some(relief) = &r.survey.relief {
+        for n in &relief.notes {
+            m.tag("<li>")
+                .text(&notes::relief_note(n, &r.survey, units))
+                .tag("</li>");
+        }
+    }
+    m.tag("</ul>").tag(SIGN_OFF).tag("</section>");
+    m.html()
 }

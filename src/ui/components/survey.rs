@@ -39,61 +39,95 @@ fn row(m: &mut Markup, label: &str, figure: impl FnOnce(&mut Markup)) {
     m.tag("</dd>");
 }
 
-/// The layout drawn to scale: area, flight lines with direction and order, first footprints.
+/// The layout drawn to scale: area, margin, flight lines with direction and order, first
+/// footprints; written as text (see `ui::markup`).
 pub fn diagram(layout: &Layout, units: crate::core::words::units::Units, id: &str) -> Html {
-    let arrow_id = format!("{id}-arrow");
+    let mut m = Markup::default();
+    diagram_markup(&mut m, layout, units, id);
+    m.html()
+}
+
+/// The layout's drawing written into `m`.
+pub fn diagram_markup(m: &mut Markup, layout: &Layout, units: crate::core::words::units::Units, id: &str) {
     let b = layout.bounds;
-    let pad = 0.04 * b.width.max(b.height).max(1.0);
-    let vb = format!(
-        "{} {} {} {}",
+    let size = b.width.max(b.height).max(1.0);
+    let pad = 0.04 * size;
+    let stroke = 0.004 * size;
+    let font = 0.035 * size;
+    let a = layout.area;
+    let g = layout.margin;
+    let rect = |class: &str, r: &crate::core::planning::survey::Rect, more: &str| {
+        format!(
+            r#"<rect class="{class}" x="{}" y="{}" width="{}" height="{}"{more} />"#,
+            r.x, r.y, r.width, r.height
+        )
+    };
+    let thin = format!(r#" stroke-width="{stroke}""#);
+    m.tag(r#"<figure class="layout-figure">"#).tag(&format!(
+        r#"<svg class="survey-map" viewBox="{} {} {} {}" role="img" preserveAspectRatio="xMidYMid meet" aria-label=""#,
         b.x - pad,
         b.y - pad,
         b.width + 2.0 * pad,
         b.height + 2.0 * pad
-    );
-    let stroke = 0.004 * b.width.max(b.height).max(1.0);
-    let font = 0.035 * b.width.max(b.height).max(1.0);
-    let a = layout.area;
-    let first = layout.lines.first().copied();
-    let last = layout.lines.last().copied();
-    html! {
-        <figure class="layout-figure">
-            <svg class="survey-map" viewBox={vb} role="img" preserveAspectRatio="xMidYMid meet"
-                aria-label={format!("Survey layout to scale: {} flight lines over an area {} by {}", layout.lines_total, format::length(a.width, units), format::length(a.height, units))}>
-                <defs>
-                    <marker id={arrow_id.clone()} viewBox="0 0 10 10" refX="8" refY="5" markerWidth="5" markerHeight="5" orient="auto-start-reverse">
-                        <path d="M0 0 L10 5 L0 10 z" class="arrow-head" />
-                    </marker>
-                </defs>
-                <rect class="area" x={a.x.to_string()} y={a.y.to_string()} width={a.width.to_string()} height={a.height.to_string()} stroke-width={(stroke * 1.5).to_string()} />
-                { for layout.footprints.iter().map(|f| html! {
-                    <rect class={classes!("footprint", format!("line-{}", f.line))} x={f.rect.x.to_string()} y={f.rect.y.to_string()}
-                        width={f.rect.width.to_string()} height={f.rect.height.to_string()} stroke-width={stroke.to_string()} />
-                }) }
-                { for layout.lines.iter().map(|l| html! {
-                    <g class="flight-line" data-line={l.number.to_string()}>
-                        <line x1={l.start.x.to_string()} y1={l.start.y.to_string()} x2={l.end.x.to_string()} y2={l.end.y.to_string()}
-                            stroke-width={stroke.to_string()} marker-end={format!("url(#{arrow_id})")} />
-                    </g>
-                }) }
-                { for layout.lines.windows(2).map(|w| html! {
-                    <line class="turn" x1={w[0].end.x.to_string()} y1={w[0].end.y.to_string()} x2={w[1].start.x.to_string()} y2={w[1].start.y.to_string()} stroke-width={stroke.to_string()} />
-                }) }
-                if let Some(f) = first {
-                    <circle class="start" cx={f.start.x.to_string()} cy={f.start.y.to_string()} r={(stroke * 4.0).to_string()} />
-                    <text class="label" x={(f.start.x + stroke * 6.0).to_string()} y={(f.start.y - stroke * 3.0).to_string()} font-size={font.to_string()}>{ "start, line 1" }</text>
-                }
-                if let Some(l) = last {
-                    <rect class="end" x={(l.end.x - stroke * 4.0).to_string()} y={(l.end.y - stroke * 4.0).to_string()} width={(stroke * 8.0).to_string()} height={(stroke * 8.0).to_string()} />
-                    <text class="label" x={(l.end.x - stroke * 6.0).to_string()} y={(l.end.y + font).to_string()} font-size={font.to_string()} text-anchor="end">{ format!("end, line {}", l.number) }</text>
-                }
-            </svg>
-            <figcaption>
-                { "To scale. Circle: start; square: end of the last line drawn; arrows: flying direction; shaded boxes: the first photos, showing the front and side overlaps." }
-                if layout.lines_omitted > 0 { { format!(" {} more lines are not drawn.", layout.lines_omitted) } }
-            </figcaption>
-        </figure>
+    ))
+    .text(&format!(
+        "Survey layout to scale: {} flight lines over an area {} by {}",
+        layout.lines_total,
+        format::length(a.width, units),
+        format::length(a.height, units)
+    ))
+    .tag(&format!(
+        r#""><defs><marker id="{id}-arrow" viewBox="0 0 10 10" refX="8" refY="5" markerWidth="5" markerHeight="5" orient="auto-start-reverse"><path d="M0 0 L10 5 L0 10 z" class="arrow-head" /></marker></defs>"#
+    ))
+    .tag(&rect(
+        "margin",
+        &g,
+        &format!(r#"{thin} stroke-dasharray="{} {}""#, stroke * 5.0, stroke * 4.0),
+    ))
+    .tag(&rect("area", &a, &format!(r#" stroke-width="{}""#, stroke * 1.5)));
+    for f in &layout.footprints {
+        m.tag(&rect(&format!("footprint line-{}", f.line), &f.rect, &thin));
     }
+    for l in &layout.lines {
+        m.tag(&format!(
+            r#"<g class="flight-line" data-line="{}"><line x1="{}" y1="{}" x2="{}" y2="{}" stroke-width="{stroke}" marker-end="url(#{id}-arrow)" /></g>"#,
+            l.number, l.start.x, l.start.y, l.end.x, l.end.y
+        ));
+    }
+    for w in layout.lines.windows(2) {
+        m.tag(&format!(
+            r#"<line class="turn" x1="{}" y1="{}" x2="{}" y2="{}" stroke-width="{stroke}" />"#,
+            w[0].end.x, w[0].end.y, w[1].start.x, w[1].start.y
+        ));
+    }
+    if let Some(f) = layout.lines.first() {
+        m.tag(&format!(
+            r#"<circle class="start" cx="{}" cy="{}" r="{}" /><text class="label" x="{}" y="{}" font-size="{font}">start, line 1</text>"#,
+            f.start.x,
+            f.start.y,
+            stroke * 4.0,
+            f.start.x + stroke * 6.0,
+            f.start.y - stroke * 3.0
+        ));
+    }
+    if let Some(l) = layout.lines.last() {
+        m.tag(&format!(
+            r#"<rect class="end" x="{}" y="{}" width="{2}" height="{2}" /><text class="label" x="{3}" y="{4}" font-size="{font}" text-anchor="end">end, line {5}</text>"#,
+            l.end.x - stroke * 4.0,
+            l.end.y - stroke * 4.0,
+            stroke * 8.0,
+            l.end.x - stroke * 6.0,
+            l.end.y + font,
+            l.number
+        ));
+    }
+    m.tag("</svg><figcaption>").text(
+        "To scale. Circle: start; square: end of the last line drawn; arrows: flying direction; shaded boxes: the first photos, showing the front and side overlaps; dashed: the margin that full overlap at the area's edges needs, which the lines' extra photos reach at the ends.",
+    );
+    if layout.lines_omitted > 0 {
+        m.text(&format!(" {} more lines are not drawn.", layout.lines_omitted));
+    }
+    m.tag("</figcaption></figure>");
 }
 
 /// The survey panel.
@@ -152,6 +186,38 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
         m.text(" / ");
         count(m, "photos", s.photos);
     });
+    row(&mut m, "Extra photos beyond each end", |m| {
+        count(m, "extra_photos_per_end", s.extra_photos_per_end);
+        m.text(" (full overlap at the edges needs ")
+            .figure("margin_along_m", s.margin_along_m, &len(s.margin_along_m))
+            .text(" beyond the ends, ")
+            .figure("margin_across_m", s.margin_across_m, &len(s.margin_across_m))
+            .text(" beyond the sides)");
+    });
+    if let (Some(out), Some(back), Some(crab)) = (s.ground_speed_out_mps, s.ground_speed_back_mps, s.crab_deg) {
+        row(&mut m, "Ground speed out / back in the wind", |m| {
+            m.figure("ground_speed_out_mps", out, &spd(out))
+                .text(" / ")
+                .figure("ground_speed_back_mps", back, &spd(back))
+                .text(", crab ")
+                .figure("crab_deg", crab, &format!("{}°", format::significant(crab)));
+        });
+    }
+    if let (Some(fine), Some(coarse), Some(front), Some(side)) =
+        (s.gsd_min_m, s.gsd_max_m, s.front_min_pct, s.side_min_pct)
+    {
+        row(&mut m, "GSD over the relief", |m| {
+            m.figure("gsd_min_m", fine, &len(fine))
+                .text(" to ")
+                .figure("gsd_max_m", coarse, &len(coarse));
+        });
+        row(&mut m, "Least overlap, front / side", |m| {
+            let pct = |v: f64| format!("{} %", format::significant(v));
+            m.figure("front_min_pct", front, &pct(front))
+                .text(" / ")
+                .figure("side_min_pct", side, &pct(side));
+        });
+    }
     row(&mut m, "Path length", |m| {
         maybe(m, "path_length_m", s.path_length_m, len)
     });
