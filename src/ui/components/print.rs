@@ -162,12 +162,7 @@ fn survey_rows(plan: &Plan) -> Vec<(&'static str, String)> {
         ("Trigger interval", or_dash(survey.trigger_s.map(format::duration))),
         (
             "Lines, photos",
-            format!(
-                "{}, {} ({} beyond each end of a line)",
-                count(survey.lines),
-                count(survey.photos),
-                count(survey.extra_photos_per_end)
-            ),
+            format!("{}, {}", count(survey.lines), count(survey.photos)),
         ),
         (
             "Flight time, batteries",
@@ -354,17 +349,35 @@ pub fn print_sheet(props: &PrintProps) -> Html {
     for n in &r.light_notes {
         m.tag("<li>").text(&n.text).tag("</li>");
     }
-    // What the survey warns of: a speed too fast for the blur or the camera, overlap lost over
-    // the relief.
-    for f in &r.survey_words.speed_flags {
-        m.tag("<li>").text(&format!("{} {}", f.reason, f.change)).tag("</li>");
+    // What the survey warns of, in short (the screen says why at length): a speed too fast for
+    // the blur or the camera, overlap lost over the relief.
+    let flags = &r.survey_words.speed_flags;
+    if let Some(slowest) = flags.iter().map(|f| f.limit_mps).reduce(f64::min) {
+        let codes: Vec<&str> = flags.iter().map(|f| f.code).collect();
+        m.tag("<li>")
+            .text(&format!(
+                "Too fast ({}): fly at {} or less.",
+                codes.join(", "),
+                format::speed(slowest, units)
+            ))
+            .tag("</li>");
     }
-    if let Some(relief) = &r.survey.relief {
-        for n in &relief.notes {
-            m.tag("<li>")
-                .text(&notes::relief_note(n, &r.survey, units))
-                .tag("</li>");
-        }
+    let survey = &r.survey;
+    let warned = survey.relief.as_ref().is_some_and(|p| !p.notes.is_empty());
+    if let (true, Some(front), Some(side), Some(height)) = (
+        warned,
+        survey.front_min_pct,
+        survey.side_min_pct,
+        survey.relief_height_m,
+    ) {
+        m.tag("<li>")
+            .text(&format!(
+                "Over the highest ground the overlaps fall to {} % front, {} % side: fly at {} above take-off to keep those planned.",
+                format::significant(front),
+                format::significant(side),
+                format::length(height, units)
+            ))
+            .tag("</li>");
     }
     m.tag("</ul>").tag(SIGN_OFF).tag("</section>");
     m.html()

@@ -122,7 +122,7 @@ pub fn diagram_markup(m: &mut Markup, layout: &Layout, units: crate::core::words
         ));
     }
     m.tag("</svg><figcaption>").text(
-        "To scale. Circle: start; square: end of the last line drawn; arrows: flying direction; shaded boxes: the first photos, showing the front and side overlaps; dashed: the margin that full overlap at the area's edges needs, which the lines' extra photos reach at the ends.",
+        "To scale. Circle: start; square: end of the last line drawn; arrows: flying direction; shaded: the first photos and their overlaps; dashed: the margin full overlap needs, which each line's extra photos reach.",
     );
     if layout.lines_omitted > 0 {
         m.text(&format!(" {} more lines are not drawn.", layout.lines_omitted));
