@@ -105,6 +105,19 @@ const NULLABLE_KEYS: &[&str] = &[
     "front_min_pct",
     "side_min_pct",
     "relief_height_m",
+    // The boundary's figures: null when it cannot be read or planned (field_problem says why).
+    "area_m2",
+    "field_lines",
+    "field_stretches",
+    "field_photos",
+    "field_path_length_m",
+    "field_turns",
+    "field_flight_time_s",
+    "field_batteries",
+    "field_storage_mb",
+    "heading_fewest_lines",
+    "heading_shortest_path",
+    "field_problem",
     // Null when the inputs lie inside GIQE 5's range (url-and-report.md).
     "niirs_note",
     // The light: no sun without a time and place, no light or signal without either.
@@ -500,6 +513,7 @@ fn valid_scenario() -> impl Strategy<Value = Scenario> {
                 (when, sky, lux, refl, auto_exposure, iso, (base_iso, fw, rn, fmin), (tht, refk), (relief, wind, wdir)),
             ),
         )| Scenario {
+            field: String::new(),
             target_height_m: tht,
             earth_k: refk,
             when,

@@ -613,6 +613,17 @@ pub const INPUTS: &[Input] = &[
     .or(0.0)
     .feeds(WIND),
     Input {
+        key: "field",
+        label: "Survey boundary",
+        unit: "",
+        kind: Kind::Text {
+            max_chars: FIELD_MAX_CHARS,
+            get: |s| &s.field,
+            set: |s, v| s.field = v,
+        },
+        ..INPUTS_BASE
+    },
+    Input {
         key: "when",
         label: "Date and time",
         unit: "",
@@ -712,6 +723,9 @@ pub const INPUTS: &[Input] = &[
 
 /// Longest scenario name kept, in characters.
 pub const NAME_MAX_CHARS: usize = 120;
+
+/// Longest boundary text kept, in characters: about 5000 points (`formats::boundary::MAX_POINTS`).
+pub const FIELD_MAX_CHARS: usize = 150_000;
 
 /// The words of the `units` key, in [`Units::ALL`] order.
 const UNIT_WORDS: [&str; 2] = [Units::Metric.key(), Units::Imperial.key()];

@@ -2,6 +2,7 @@
 //! (`shared/reference/url-and-report.md`). The `report` example prints it as JSON and the page
 //! shows the same values, each tagged with its field name.
 
+use crate::core::contract::field::{field_report, FieldReport};
 use crate::core::contract::plan::Plan;
 use crate::core::contract::scenario::{AirModel, FieldError, RawScenario, Scenario, CONTRACT_VERSION};
 use crate::core::physics::engine::{quality, Evaluation, Limit, Setup};
@@ -145,6 +146,10 @@ pub struct Report {
     /// The survey's flags, guidance and notes in words (flattened after its figures).
     #[serde(flatten)]
     pub survey_words: SurveyWords,
+    /// The survey over the boundary (`field`), flattened; absent without one. Only the report
+    /// (`report_for_query`) fills it: the page's plan never does (see `contract::field`).
+    #[serde(flatten)]
+    pub field: Option<FieldReport>,
     pub errors: Vec<FieldError>,
     pub ignored: Vec<String>,
 }
@@ -437,6 +442,7 @@ impl Report {
             best: None,
             survey: survey.clone(),
             survey_words: notes::survey_words(survey, scenario.units),
+            field: None,
             errors,
             ignored: scenario.ignored_keys(),
         }
@@ -447,9 +453,19 @@ impl Report {
 pub fn report_for_query(query: &str) -> Report {
     let plan = Plan::from_raw(&RawScenario::from_query(query));
     let extras = plan.extras();
+    let mut errors = plan.report.errors.clone();
+    let field = field_report(&plan.scenario, &plan.report.survey);
+    if let Some(problem) = field.as_ref().and_then(|f| f.field_problem.clone()) {
+        errors.push(FieldError {
+            key: "field".to_string(),
+            message: problem,
+        });
+    }
     Report {
         day: extras.day,
         best: extras.best,
+        field,
+        errors,
         ..plan.report
     }
 }

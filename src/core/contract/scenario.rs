@@ -136,6 +136,9 @@ impl AirModel {
 #[derive(Clone, Debug, Default, PartialEq)]
 pub struct Scenario {
     pub name: String,
+    /// The survey boundary as the `field` key writes it (`lon lat,…`; see
+    /// `formats::boundary`), empty without one. Read and planned off the page's first load.
+    pub field: String,
     pub sensor_width_mm: f64,
     pub sensor_height_mm: f64,
     pub cols: u32,

@@ -1,7 +1,8 @@
 //! Planning: the backward solves, the survey layout, the cautions, the light (exposure, the day,
-//! the best settings) and the ground under a survey, on top of the physics.
+//! the best settings), the ground under a survey and surveys over a real boundary, on top of the physics.
 
 pub mod cautions;
+pub mod field;
 pub mod ground;
 pub mod light;
 pub mod solve;

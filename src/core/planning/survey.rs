@@ -258,6 +258,10 @@ pub struct SurveyPlan {
     /// The wind on the lines, when a wind is given and the lines can be flown in it.
     #[serde(skip)]
     pub wind: Option<WindOnLines>,
+    /// The speed the flight time is counted at: the planned speed in still air, the mean over a
+    /// pair of legs in a wind; `None` when there is none.
+    #[serde(skip)]
+    pub time_speed_mps: Option<f64>,
     /// The limits that the planned speed exceeds (in a wind, on the fastest leg).
     #[serde(skip)]
     pub speed_flags: Vec<SpeedFlag>,
@@ -598,6 +602,7 @@ pub fn plan_survey(inputs: &SurveyInputs) -> SurveyPlan {
         relief_height_m: relief.as_ref().and_then(|r| r.restoring_height_m),
         relief,
         wind,
+        time_speed_mps: mean,
         speed_flags,
         overlap: overlap_guidance(inputs.settings.front_overlap_pct, inputs.settings.side_overlap_pct),
         notes,
