@@ -18,6 +18,11 @@ from html.parser import HTMLParser
 FIRST_LOAD_BUDGET = 250_000
 # Gzipped bytes each on-demand module (a worker's loader shim and what it loads) should not pass.
 ON_DEMAND_BUDGET = 100_000
+# Modules with a budget of their own. The boundary module (issue 14) carries geo's polygon
+# intersection (i_overlay and its sorts, about 60 kB) and geographiclib's polygon area: measured
+# 112.9 kB after geo's validation (DE-9IM, 29 kB) gave way to its segment intersection. It loads
+# only when a boundary is given.
+MODULE_BUDGETS = {"sharpfield-field": 120_000}
 
 
 def gz(data: bytes) -> int:
@@ -103,10 +108,11 @@ def main() -> int:
         lines.append("within the budget, %d bytes to spare" % (FIRST_LOAD_BUDGET - total))
     for module, files in on_demand_modules(root).items():
         size = sum(sizes[f] for f in files)
-        lines.append("on-demand module %s (%s): %d bytes gzipped; budget %d" % (module, ", ".join(files), size, ON_DEMAND_BUDGET))
-        if size > ON_DEMAND_BUDGET:
+        budget = MODULE_BUDGETS.get(module, ON_DEMAND_BUDGET)
+        lines.append("on-demand module %s (%s): %d bytes gzipped; budget %d" % (module, ", ".join(files), size, budget))
+        if size > budget:
             over = True
-            lines.append("FAILED: the module %s is over its budget by %d bytes" % (module, size - ON_DEMAND_BUDGET))
+            lines.append("FAILED: the module %s is over its budget by %d bytes" % (module, size - budget))
     text = "\n".join(lines) + "\n"
     sys.stdout.write(text)
     os.makedirs(os.path.dirname(out), exist_ok=True)

@@ -51,6 +51,11 @@ impl Markup {
             .tag("</span>")
     }
 
+    /// The markup as text.
+    pub fn into_string(self) -> String {
+        self.0
+    }
+
     /// The markup as yew nodes.
     pub fn html(self) -> Html {
         Html::from_html_unchecked(AttrValue::from(self.0))

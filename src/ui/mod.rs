@@ -9,6 +9,7 @@ pub mod aside;
 mod browser;
 mod components;
 pub mod export;
+pub mod field;
 mod markup;
 pub mod state;
 mod worker;

@@ -37,6 +37,11 @@ const FAILED: &str = "A part of the planner could not be loaded; reload the page
 /// `done` with its answer, or with why there is none (the worker could not start, or failed: then
 /// every request waiting on it is answered so, and the next one starts it anew).
 pub fn ask(loader: &'static str, request: &[JsValue], done: impl FnOnce(Result<js_sys::Array, String>) + 'static) {
+    ask_boxed(loader, request, Box::new(done));
+}
+
+/// [`ask`] with the answer's receiver boxed: one copy of this code, whatever the receivers.
+fn ask_boxed(loader: &'static str, request: &[JsValue], done: Done) {
     let started = RUNNING.with(|r| r.borrow().iter().any(|w| w.loader == loader)) || start(loader);
     if !started {
         done(Err(FAILED.to_string()));
@@ -53,7 +58,7 @@ pub fn ask(loader: &'static str, request: &[JsValue], done: impl FnOnce(Result<j
         for part in request {
             message.push(part);
         }
-        w.waiting.push((id, Box::new(done)));
+        w.waiting.push((id, done));
         if w.listening {
             let _ = w.worker.post_message(&message);
         } else {

@@ -204,3 +204,41 @@ test('relief, wind and the block edges: typed in, shown as the report gives them
   assert.equal(await page.isHidden('#crash-notice'), true);
   await page.context().close();
 });
+
+// A 400 m square paddock with a dam in it (a hole), as `lon lat` points: the same shape the
+// native tests work by hand (tests/field.rs), placed near the origin used above.
+const PADDOCK = '146.29 -36.85,146.294486 -36.85,146.294486 -36.846396,146.29 -36.846396'
+  + ';146.291346 -36.848919,146.293140 -36.848919,146.293140 -36.847477,146.291346 -36.847477';
+
+test('a boundary typed in: lines, photos and time over it from the on-demand module, drawn, and shown as the report gives them', async () => {
+  const page = await app.open(FIELD);
+  const requested = [];
+  page.on('request', (r) => requested.push(new URL(r.url()).pathname));
+  await page.waitForTimeout(300);
+  assert.ok(!requested.some((p) => p.includes('sharpfield-field')), 'the boundary module is not loaded without a boundary');
+  await page.fill('#in-field', PADDOCK);
+  await page.waitForFunction(() => new URLSearchParams(location.search).get('field'));
+  await page.locator('#survey .field-map').waitFor({ timeout: 20000 });
+  assert.ok(requested.some((p) => p.includes('sharpfield-field')), 'the boundary module loads when a boundary is given');
+  const rep = await showsReport(page);
+  assert.ok(rep.field_lines > 5 && rep.field_photos > rep.field_lines, JSON.stringify({ l: rep.field_lines, p: rep.field_photos }));
+  for (const key of ['area_m2', 'field_lines', 'field_photos', 'field_path_length_m', 'field_turns', 'field_flight_time_s']) {
+    assert.equal(await page.locator(`#survey [data-key=${key}]`).count(), 1, `${key} is shown over the boundary`);
+  }
+  // The drawing: the boundary with its hole, a line per flown stretch, a dot per photo centre,
+  // a scale bar and a north arrow.
+  assert.equal(await page.locator('#survey .field-map .field-line').count(), rep.field_stretches);
+  assert.equal(await page.locator('#survey .field-map .photo').count(), rep.field_photos);
+  assert.equal(await page.locator('#survey .field-map .scale-bar').count(), 1);
+  assert.equal(await page.locator('#survey .field-map .north').count(), 1);
+  // The printed sheet carries the drawing too.
+  await page.locator('.print-sheet .field-map').waitFor({ state: 'attached', timeout: 20000 });
+  // A ring that crosses itself is named with its place; the text typed stays.
+  const bowTie = '146.29 -36.85,146.2945 -36.8464,146.2945 -36.85,146.29 -36.8464';
+  await page.fill('#in-field', bowTie);
+  await page.locator('#survey [data-key=field_problem]').waitFor({ timeout: 20000 });
+  assert.match(await page.locator('#survey [data-key=field_problem]').textContent(), /outer ring crosses itself/);
+  assert.equal(await page.inputValue('#in-field'), bowTie);
+  assert.equal(await page.isHidden('#crash-notice'), true);
+  await page.context().close();
+});

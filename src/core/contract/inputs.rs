@@ -599,10 +599,16 @@ pub const INPUTS: &[Input] = &[
         },
         ..INPUTS_BASE
     },
-    number("wind", "Wind speed", "m/s", (0.0, 60.0), plain!(survey.wind_mps))
-        .or(0.0)
-        .imperial(MPH)
-        .feeds(WIND),
+    number(
+        "wind",
+        "Wind speed (the speed above is then through the air)",
+        "m/s",
+        (0.0, 60.0),
+        plain!(survey.wind_mps),
+    )
+    .or(0.0)
+    .imperial(MPH)
+    .feeds(WIND),
     number(
         "wdir",
         "Wind from",
@@ -822,9 +828,10 @@ impl Input {
         }
     }
 
-    /// Whether the key takes a number or a span (and so has a field of its own on the page).
+    /// Whether the key takes a number or a span, or is the boundary (and so has a field of its own
+    /// on the page).
     pub fn is_number(&self) -> bool {
-        matches!(self.kind, Kind::Number { .. } | Kind::Span { .. })
+        matches!(self.kind, Kind::Number { .. } | Kind::Span { .. }) || self.key == "field"
     }
 
     /// Whether the key takes one number (not a span of two).

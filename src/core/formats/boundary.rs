@@ -8,7 +8,9 @@
 //! Architecture invariant: no reader panics on any text; the readers run natively (the report)
 //! and in an on-demand module, never in the page's first load.
 
-use geo::Validation;
+use geo::algorithm::coordinate_position::{CoordPos, CoordinatePosition};
+use geo::algorithm::line_intersection::{line_intersection, LineIntersection};
+use geo::{Coord, Line};
 
 /// The most points a boundary may have in all its rings: a field traced by hand or by a
 /// receiver walked around it needs a few hundred; a file with more is likely a detailed map layer.
@@ -180,7 +182,16 @@ impl Boundary {
     }
 
     /// Checks the boundary: see the module's description.
-    pub fn checked(self) -> Result<Boundary, BoundaryProblem> {
+    pub fn checked(mut self) -> Result<Boundary, BoundaryProblem> {
+        // A point repeated at once (common in traced files) is one point.
+        for area in &mut self.areas {
+            for ring in std::iter::once(&mut area.outer).chain(area.holes.iter_mut()) {
+                ring.dedup();
+                if ring.len() > 1 && ring.first() == ring.last() {
+                    ring.pop();
+                }
+            }
+        }
         let count = self.point_count();
         if count > MAX_POINTS {
             return Err(BoundaryProblem::TooManyPoints { count });
@@ -198,32 +209,76 @@ impl Boundary {
                 };
                 check_ring(ring, place)?;
             }
-            let polygon = area.polygon();
-            if let Some(problem) = polygon.validation_errors().into_iter().next() {
-                use geo::algorithm::validation::{InvalidPolygon, RingRole};
-                let ring = |role: &RingRole| match role {
-                    RingRole::Exterior => 0,
-                    RingRole::Interior(k) => k + 1,
-                };
-                let place = |role: &RingRole| Place {
-                    polygon: p + 1,
-                    ring: ring(role),
-                };
-                return Err(match &problem {
-                    InvalidPolygon::TooFewPointsInRing(role) => BoundaryProblem::TooFewPoints { place: place(role) },
-                    InvalidPolygon::SelfIntersection(role) => BoundaryProblem::SelfIntersecting { place: place(role) },
-                    InvalidPolygon::NonFiniteCoord(role, at) => BoundaryProblem::OutOfRange {
-                        place: place(role),
-                        point: at.0 + 1,
-                        lon: f64::NAN,
-                        lat: f64::NAN,
-                    },
-                    _ => BoundaryProblem::RingsCross { polygon: p + 1 },
-                });
-            }
+            check_rings(area, p + 1)?;
         }
         Ok(self)
     }
+}
+
+/// The segments of a closed ring, with their ring and place in it.
+fn segments(ring: &[[f64; 2]], which: usize, out: &mut Vec<(usize, usize, Line<f64>)>) {
+    let n = ring.len();
+    for i in 0..n {
+        let (a, b) = (ring[i], ring[(i + 1) % n]);
+        out.push((
+            which,
+            i,
+            Line::new(Coord { x: a[0], y: a[1] }, Coord { x: b[0], y: b[1] }),
+        ));
+    }
+}
+
+/// Whether segments `i` and `j` of a ring of `n` share an end by being neighbours.
+fn neighbours(i: usize, j: usize, n: usize) -> bool {
+    i.abs_diff(j) == 1 || i.abs_diff(j) == n - 1
+}
+
+/// The polygon's rings against each other and themselves (geo's segment intersection): no ring
+/// crosses or touches itself, no two rings meet, every hole lies inside the outer ring. A sweep
+/// over the segments sorted by their least longitude keeps it near n log n.
+fn check_rings(area: &Area, polygon: usize) -> Result<(), BoundaryProblem> {
+    let rings: Vec<&Vec<[f64; 2]>> = std::iter::once(&area.outer).chain(area.holes.iter()).collect();
+    let mut all = Vec::new();
+    for (k, ring) in rings.iter().enumerate() {
+        segments(ring, k, &mut all);
+    }
+    let min_x = |l: &Line<f64>| l.start.x.min(l.end.x);
+    let max_x = |l: &Line<f64>| l.start.x.max(l.end.x);
+    all.sort_unstable_by(|a, b| min_x(&a.2).total_cmp(&min_x(&b.2)));
+    for (at, &(ring_a, i, a)) in all.iter().enumerate() {
+        for &(ring_b, j, b) in all[at + 1..].iter() {
+            if min_x(&b) > max_x(&a) {
+                break;
+            }
+            let Some(meet) = line_intersection(a, b) else { continue };
+            if ring_a == ring_b {
+                let n = rings[ring_a].len();
+                // Neighbours meet at their shared corner; anything more is a crossing.
+                let touching_corner = matches!(meet, LineIntersection::SinglePoint { is_proper: false, .. });
+                if neighbours(i, j, n) && touching_corner {
+                    continue;
+                }
+                return Err(BoundaryProblem::SelfIntersecting {
+                    place: Place { polygon, ring: ring_a },
+                });
+            }
+            return Err(BoundaryProblem::RingsCross { polygon });
+        }
+    }
+    let outer = Area {
+        outer: area.outer.clone(),
+        holes: vec![],
+    }
+    .polygon();
+    for hole in &area.holes {
+        let inside = hole
+            .first()
+            .is_some_and(|p| outer.coordinate_position(&Coord { x: p[0], y: p[1] }) == CoordPos::Inside);
+        if !inside {
+            return Err(BoundaryProblem::RingsCross { polygon });
+        }
+    }
+    Ok(())
 }
 
 /// A ring's own checks: finite, in range, three distinct points, not across the 180° meridian.

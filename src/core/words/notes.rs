@@ -434,9 +434,7 @@ pub fn survey_note(note: &SurveyNote, units: Units) -> String {
 /// Why the lines cannot be flown in the wind, in words.
 fn wind_limit(limit: WindLimit, units: Units) -> String {
     match limit {
-        WindLimit::NoAirspeed => "A wind is given but no speed through the air: give the planned speed (with a \
-                                  wind it is the speed through the air) for the ground speeds, times and smear."
-            .to_string(),
+        WindLimit::NoAirspeed => "A wind is given but no speed: give the speed through the air.".to_string(),
         WindLimit::WindUnusable => "The wind speed or direction is not usable: the wind is left out.".to_string(),
         WindLimit::CannotHoldLine {
             across_mps,
@@ -476,9 +474,7 @@ fn relief_unusable(reason: ReliefUnusable, units: Units) -> String {
             length(highest_ground_m, units),
             length(height_m, units)
         ),
-        ReliefUnusable::NoOverlapPlanned => {
-            "With no overlap planned there is none for the relief to keep: the relief is left out.".to_string()
-        }
+        ReliefUnusable::NoOverlapPlanned => "No overlap is planned: the relief is left out.".to_string(),
         ReliefUnusable::Height { .. } | ReliefUnusable::Ground | ReliefUnusable::Layout => {
             "The relief cannot be used with this layout: it is left out.".to_string()
         }

@@ -88,7 +88,7 @@ pub fn number_field(props: &FieldProps) -> Html {
     html! {
         <div class={classes!("field", invalid.then_some("invalid"))}>
             <label for={id.clone()}>{ label }{ if unit.is_empty() { html!{} } else { html!{ <span class="unit">{ format!(" ({unit})") }</span> } } }</label>
-            <input id={id} name={key.clone()} type="text" inputmode={if spec.is_some_and(|s| s.range().is_some() && !s.is_single()) { "text" } else { "decimal" }} autocomplete="off" spellcheck="false"
+            <input id={id} name={key.clone()} type="text" inputmode={if spec.is_some_and(|s| s.is_single()) { "decimal" } else { "text" }} autocomplete="off" spellcheck="false"
                 value={shown} {oninput}
                 aria-invalid={invalid.to_string()}
                 aria-describedby={invalid.then(|| error_id.clone())} />

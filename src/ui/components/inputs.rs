@@ -418,9 +418,9 @@ pub fn survey_group(props: &InputsProps) -> Html {
                 if let Some(message) = &*locating { <span class="note" role="status">{ format!(" {message}") }</span> }
             </p>
             { field(props, "hdg", None) }
+            { field(props, "field", Some("lon lat points, commas between; ';' before a hole".to_string())) }
             { field(props, "relief", Some("lowest,highest, e.g. -5,25; the height is then above take-off".to_string())) }
             { pair(field(props, "wind", None), field(props, "wdir", None)) }
-            if props.state.plan.scenario.survey.wind_mps > 0.0 { <p class="hint">{ "In a wind the speed is through the air; the survey gives the ground speed on each leg." }</p> }
         </fieldset>
     }
 }

@@ -11,7 +11,7 @@ use crate::core::words::light::{exposure_time, light_source, snr_source};
 use crate::core::words::notes;
 use crate::ui::browser;
 use crate::ui::components::chart::chart_markup;
-use crate::ui::components::survey::diagram_markup;
+use crate::ui::components::survey::{diagram_markup, use_boundary};
 use crate::ui::markup::Markup;
 use crate::ui::state::State;
 use std::rc::Rc;
@@ -318,6 +318,7 @@ pub fn print_sheet(props: &PrintProps) -> Html {
         },
     };
     let (resolution, classes) = resolution_rows(plan);
+    let boundary = use_boundary(plan);
     let mut m = Markup::default();
     m.tag(r#"<section class="print-sheet" aria-hidden="true">"#);
     head(&mut m, &s.name, &date, props.qr.as_ref().as_ref());
@@ -339,8 +340,16 @@ pub fn print_sheet(props: &PrintProps) -> Html {
         .tag(r#"</p><div class="print-grid"><div><h2>Survey</h2>"#);
     rows_table(&mut m, &survey_rows(plan), &[]);
     m.tag(r#"</div><div class="print-diagram">"#);
-    if let Some(l) = &plan.layout {
-        diagram_markup(&mut m, l, units, "print");
+    // Over a real boundary, its drawing and figures; otherwise the rectangle's diagram.
+    match &boundary {
+        Some(b) => {
+            m.tag(b);
+        }
+        None => {
+            if let Some(l) = &plan.layout {
+                diagram_markup(&mut m, l, units, "print");
+            }
+        }
     }
     m.tag("</div></div><h2>Cautions</h2><ul class=\"print-cautions\">");
     for c in &r.cautions {

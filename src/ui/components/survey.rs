@@ -2,10 +2,12 @@
 //! diagram and the GeoJSON export.
 
 use crate::core::contract::scenario::Scenario;
+use crate::core::planning::field::FieldLayout;
 use crate::core::planning::survey::Layout;
 use crate::core::words::format;
 use crate::ui::browser;
 use crate::ui::export;
+use crate::ui::field;
 use crate::ui::markup::Markup;
 use crate::ui::state::State;
 use std::rc::Rc;
@@ -130,6 +132,46 @@ pub fn diagram_markup(m: &mut Markup, layout: &Layout, units: crate::core::words
     m.tag("</figcaption></figure>");
 }
 
+/// The figures and drawing of the survey over the boundary (`field`) as markup, laid out by the
+/// boundary module for this plan; a note while it works; `None` without a boundary. Shared by the
+/// survey panel and the printed sheet.
+#[hook]
+pub fn use_boundary(plan: &crate::core::contract::plan::Plan) -> Option<String> {
+    let scenario = &plan.scenario;
+    let drawn = use_state(|| None::<(String, Result<String, String>)>);
+    let asked = if scenario.field.trim().is_empty() {
+        String::new()
+    } else {
+        scenario.to_query()
+    };
+    {
+        let drawn = drawn.clone();
+        let layout = FieldLayout::of(
+            &plan.report.survey,
+            scenario.survey.heading_deg,
+            scenario.survey.turn_s,
+            scenario.survey.endurance_min,
+            scenario.survey.photo_mb,
+        );
+        let (field, units) = (scenario.field.clone(), scenario.units);
+        use_effect_with(asked.clone(), move |asked| {
+            if !field.trim().is_empty() {
+                let asked = asked.clone();
+                field::plan(&field, &layout, units, move |result| drawn.set(Some((asked, result))));
+            }
+        });
+    }
+    match (&*drawn, asked.is_empty()) {
+        (_, true) => None,
+        (Some((key, Ok(markup))), _) if *key == asked => Some(markup.clone()),
+        (Some((key, Err(problem))), _) if *key == asked => Some(format!(
+            r#"<p class="error" role="alert" data-key="field_problem">{}</p>"#,
+            crate::ui::markup::esc(problem)
+        )),
+        _ => Some(r#"<p class="note" data-field="pending">Laying out the lines over the boundary…</p>"#.to_string()),
+    }
+}
+
 /// The survey panel.
 #[function_component(SurveyPanel)]
 pub fn survey_panel(props: &SurveyProps) -> Html {
@@ -163,7 +205,13 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
         (Ok(()), Some((asked, problem))) if asked == scenario => Some(problem.clone()),
         _ => None,
     };
+    let boundary = use_boundary(plan);
     let mut m = Markup::default();
+    if let Some(b) = boundary {
+        m.tag(r#"<div class="boundary"><h3>Over the boundary</h3>"#)
+            .tag(&b)
+            .tag("</div><h3>The rectangle (quick estimate)</h3>");
+    }
     m.tag(r#"<dl class="figures">"#);
     row(&mut m, "Footprint of one photo", |m| {
         m.figure("footprint_across_m", s.footprint_across_m, &len(s.footprint_across_m))
