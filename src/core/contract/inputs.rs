@@ -828,10 +828,9 @@ impl Input {
         }
     }
 
-    /// Whether the key takes a number or a span, or is the boundary (and so has a field of its own
-    /// on the page).
+    /// Whether the key takes a number or a span (and so has a field of its own on the page).
     pub fn is_number(&self) -> bool {
-        matches!(self.kind, Kind::Number { .. } | Kind::Span { .. }) || self.key == "field"
+        matches!(self.kind, Kind::Number { .. } | Kind::Span { .. })
     }
 
     /// Whether the key takes one number (not a span of two).
