@@ -337,6 +337,16 @@ fn bad_files_are_refused_with_what_is_wrong_and_where() {
             "outer ring crosses itself",
         ),
         ("pasted.txt".into(), "146 -36, 146.01 -36, north".into(), "Point 3 of the outer ring ('north')"),
+        (
+            "pasted.txt".into(),
+            "146 -36,146.01 -36,146.01 -35.99,146 -35.99;146.02 -36,146.03 -36,146.03 -35.99".into(),
+            "a hole lies outside the outer ring",
+        ),
+        (
+            "pasted.txt".into(),
+            "146 -36,146.01 -36,146.01 -35.99,146 -35.99;146.005 -35.995,146.02 -35.995,146.005 -35.994".into(),
+            "rings of polygon 1 cross each other",
+        ),
     ];
     for (name, text, expected) in cases {
         let message = read_file(&name, &text)
@@ -425,4 +435,11 @@ proptest! {
             prop_assert!(!problem.message().is_empty());
         }
     }
+}
+
+#[test]
+fn a_point_repeated_at_once_is_one_point() {
+    // Traced files often repeat a point; the ring is the same ring (and no crossing).
+    let b = Boundary::from_text("146 -36,146.01 -36,146.01 -36,146.01 -35.99,146 -35.99,146 -36").unwrap();
+    assert_eq!(b.areas[0].outer.len(), 4);
 }

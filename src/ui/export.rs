@@ -22,26 +22,11 @@ fn geojson_for(query: &str) -> Result<String, String> {
 
 /// In the worker: answers every request with the export of the query it carries.
 pub fn serve() {
-    worker::serve(|request| {
-        let query = request.get(0).as_string().unwrap_or_default();
-        let answer = geojson_for(&query);
-        let ok = answer.is_ok();
-        let text = answer.unwrap_or_else(|problem| problem);
-        js_sys::Array::of2(&JsValue::from_bool(ok), &JsValue::from_str(&text))
-    });
+    worker::serve(|request| worker::text_answer(geojson_for(&request.get(0).as_string().unwrap_or_default())));
 }
 
 /// In the page: asks the worker for the GeoJSON of `query` and calls `done` with it, or with why
 /// it cannot be made (also when the worker cannot be started or fails).
 pub fn geojson(query: &str, done: impl FnOnce(Result<String, String>) + 'static) {
-    worker::ask(LOADER, &[JsValue::from_str(query)], move |answer| {
-        done(answer.and_then(|data| {
-            let text = data.get(1).as_string().unwrap_or_default();
-            if data.get(0).as_bool() == Some(true) {
-                Ok(text)
-            } else {
-                Err(text)
-            }
-        }))
-    });
+    worker::ask_text(LOADER, &[JsValue::from_str(query)], done);
 }

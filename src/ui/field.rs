@@ -253,10 +253,7 @@ pub fn serve() {
     worker::serve(|request| {
         let field = request.get(0).as_string().unwrap_or_default();
         let numbers: Vec<f64> = (1..12).map(|i| request.get(i).as_f64().unwrap_or(f64::NAN)).collect();
-        let result = answer(&field, &numbers);
-        let ok = result.is_ok();
-        let text = result.unwrap_or_else(|problem| problem);
-        js_sys::Array::of2(&JsValue::from_bool(ok), &JsValue::from_str(&text))
+        worker::text_answer(answer(&field, &numbers))
     });
 }
 
@@ -265,14 +262,5 @@ pub fn serve() {
 pub fn plan(field: &str, layout: &FieldLayout, units: Units, done: impl FnOnce(Result<String, String>) + 'static) {
     let mut request = vec![JsValue::from_str(field)];
     request.extend(request_numbers(layout, units).iter().map(|v| JsValue::from_f64(*v)));
-    worker::ask(LOADER, &request, move |answer| {
-        done(answer.and_then(|data| {
-            let text = data.get(1).as_string().unwrap_or_default();
-            if data.get(0).as_bool() == Some(true) {
-                Ok(text)
-            } else {
-                Err(text)
-            }
-        }))
-    });
+    worker::ask_text(LOADER, &request, done);
 }

@@ -67,6 +67,29 @@ fn ask_boxed(loader: &'static str, request: &[JsValue], done: Done) {
     });
 }
 
+/// [`ask`] of a worker that answers `[true, text]` or `[false, the problem in words]`
+/// ([`text_answer`]): `done` gets the text or the problem.
+pub fn ask_text(loader: &'static str, request: &[JsValue], done: impl FnOnce(Result<String, String>) + 'static) {
+    ask(loader, request, move |answer| {
+        done(answer.and_then(|data| {
+            let text = data.get(1).as_string().unwrap_or_default();
+            if data.get(0).as_bool() == Some(true) {
+                Ok(text)
+            } else {
+                Err(text)
+            }
+        }))
+    });
+}
+
+/// In a worker: the answer `[true, text]` or `[false, the problem in words]` that [`ask_text`]
+/// reads.
+pub fn text_answer(result: Result<String, String>) -> js_sys::Array {
+    let ok = result.is_ok();
+    let text = result.unwrap_or_else(|problem| problem);
+    js_sys::Array::of2(&JsValue::from_bool(ok), &JsValue::from_str(&text))
+}
+
 /// Starts the worker behind `loader`; false when the browser refuses.
 fn start(loader: &'static str) -> bool {
     let Ok(worker) = web_sys::Worker::new(loader) else {
