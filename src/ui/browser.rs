@@ -412,3 +412,19 @@ impl JsonView for wasm_bindgen::JsValue {
             .unwrap_or_default()
     }
 }
+
+/// Reads the first file a file input holds as text and calls `done` with it (`None` when it
+/// cannot be read), then empties the input so that the same file can be chosen again. The reader
+/// returned must be kept until it answers: dropping it cancels the reading. One copy of gloo's
+/// reader serves every file input.
+pub fn read_chosen_file(
+    input: &web_sys::HtmlInputElement,
+    done: Box<dyn FnOnce(String, Option<String>)>,
+) -> Option<gloo::file::callbacks::FileReader> {
+    let file = gloo::file::File::from(input.files()?.get(0)?);
+    let name = file.name();
+    input.set_value("");
+    Some(gloo::file::callbacks::read_as_text(&file, move |text| {
+        done(name, text.ok())
+    }))
+}

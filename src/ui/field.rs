@@ -264,3 +264,42 @@ pub fn plan(field: &str, layout: &FieldLayout, units: Units, done: impl FnOnce(R
     request.extend(request_numbers(layout, units).iter().map(|v| JsValue::from_f64(*v)));
     worker::ask_text(LOADER, &request, done);
 }
+
+/// The boundary-file modules' loaders: the GeoJSON and the KML reader each in a worker of its own
+/// (together they weigh more than a module's budget).
+const GEOJSON_LOADER: &str = "./sharpfield-geojson_loader.js";
+const KML_LOADER: &str = "./sharpfield-kml_loader.js";
+
+/// In a file-reading worker: answers `[text]` with `[true, the field text]` or `[false, what is
+/// wrong and where]`, reading with `read`.
+pub fn serve_read(read: fn(&str) -> Result<Boundary, crate::core::formats::boundary::BoundaryProblem>) {
+    // A function pointer cannot be captured by `serve`'s plain function; keep it in the worker's
+    // one thread.
+    READER.with(|r| r.set(Some(read)));
+    worker::serve(|request| {
+        let text = request.get(0).as_string().unwrap_or_default();
+        let read = READER.with(|r| r.get());
+        let result = match read {
+            Some(read) => read(&text).map(|b| b.to_text()).map_err(|p| p.message()),
+            None => Err("No reader.".to_string()),
+        };
+        worker::text_answer(result)
+    });
+}
+
+type Reader = fn(&str) -> Result<Boundary, crate::core::formats::boundary::BoundaryProblem>;
+
+thread_local! {
+    static READER: std::cell::Cell<Option<Reader>> = const { std::cell::Cell::new(None) };
+}
+
+/// In the page: reads a boundary file into the `field` text (a `.kml` name with the KML reader,
+/// anything else with the GeoJSON one), or says what is wrong with it.
+pub fn read(name: &str, text: &str, done: impl FnOnce(Result<String, String>) + 'static) {
+    let loader = if name.to_ascii_lowercase().ends_with(".kml") {
+        KML_LOADER
+    } else {
+        GEOJSON_LOADER
+    };
+    worker::ask_text(loader, &[JsValue::from_str(text)], done);
+}

@@ -70,6 +70,11 @@ fn ask_boxed(loader: &'static str, request: &[JsValue], done: Done) {
 /// [`ask`] of a worker that answers `[true, text]` or `[false, the problem in words]`
 /// ([`text_answer`]): `done` gets the text or the problem.
 pub fn ask_text(loader: &'static str, request: &[JsValue], done: impl FnOnce(Result<String, String>) + 'static) {
+    ask_text_boxed(loader, request, Box::new(done));
+}
+
+/// [`ask_text`] with the receiver boxed: one copy of this code, whatever the receivers.
+fn ask_text_boxed(loader: &'static str, request: &[JsValue], done: Box<dyn FnOnce(Result<String, String>)>) {
     ask(loader, request, move |answer| {
         done(answer.and_then(|data| {
             let text = data.get(1).as_string().unwrap_or_default();

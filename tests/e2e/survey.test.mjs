@@ -242,3 +242,30 @@ test('a boundary typed in: lines, photos and time over it from the on-demand mod
   assert.equal(await page.isHidden('#crash-notice'), true);
   await page.context().close();
 });
+
+test('a boundary file imported: GeoJSON and KML read by their own modules into the boundary field; a bad file is named and nothing is lost', async () => {
+  const page = await app.open(FIELD);
+  const requested = [];
+  page.on('request', (r) => requested.push(new URL(r.url()).pathname));
+  const ring = [[146.29, -36.85], [146.294486, -36.85], [146.294486, -36.846396], [146.29, -36.846396], [146.29, -36.85]];
+  const geojson = JSON.stringify({ type: 'FeatureCollection', features: [{ type: 'Feature', properties: { name: 'Dam paddock' }, geometry: { type: 'Polygon', coordinates: [ring] } }] });
+  await page.setInputFiles('#import-boundary', { name: 'dam-paddock.geojson', mimeType: 'application/geo+json', buffer: Buffer.from(geojson) });
+  await page.waitForFunction(() => document.querySelector('#in-field').value.startsWith('146.29 -36.85'));
+  await page.locator('#survey .field-map').waitFor({ timeout: 20000 });
+  assert.match(await page.textContent('#survey-status'), /Read dam-paddock\.geojson/);
+  assert.ok(requested.some((p) => p.includes('sharpfield-geojson')) && !requested.some((p) => p.includes('sharpfield-kml')), 'only the GeoJSON reader loads for a GeoJSON file');
+  await showsReport(page);
+  // KML, with a hole.
+  const coords = (r) => r.map((p) => p.join(',')).join(' ');
+  const hole = [[146.291346, -36.848919], [146.29314, -36.848919], [146.29314, -36.847477], [146.291346, -36.847477], [146.291346, -36.848919]];
+  const kml = `<?xml version="1.0"?><kml xmlns="http://www.opengis.net/kml/2.2"><Document><Placemark><Polygon><outerBoundaryIs><LinearRing><coordinates>${coords(ring)}</coordinates></LinearRing></outerBoundaryIs><innerBoundaryIs><LinearRing><coordinates>${coords(hole)}</coordinates></LinearRing></innerBoundaryIs></Polygon></Placemark></Document></kml>`;
+  await page.setInputFiles('#import-boundary', { name: 'dam.kml', mimeType: 'application/vnd.google-earth.kml+xml', buffer: Buffer.from(kml) });
+  await page.waitForFunction(() => document.querySelector('#in-field').value.includes(';'));
+  const withHole = await page.inputValue('#in-field');
+  // A file that holds no polygon is named with what it holds; the boundary stays as it was.
+  await page.setInputFiles('#import-boundary', { name: 'gate.geojson', mimeType: 'application/geo+json', buffer: Buffer.from('{"type":"Point","coordinates":[146.3,-36.8]}') });
+  await page.waitForFunction(() => /gate\.geojson: The file holds no polygon/.test(document.querySelector('#survey-status')?.textContent ?? ''));
+  assert.equal(await page.inputValue('#in-field'), withHole);
+  assert.equal(await page.isHidden('#crash-notice'), true);
+  await page.context().close();
+});

@@ -5,7 +5,7 @@ use super::inputs::{
     AirGroup, BandGroup, CameraGroup, GeometryGroup, InputsProps, LensGroup, MotionGroup, NeedGroup, SurveyGroup,
 };
 use super::light::LightGroup;
-use super::name::NameField;
+use super::name::name_field;
 use crate::core::contract::inputs::input;
 use yew::prelude::*;
 
@@ -17,7 +17,7 @@ pub fn scenario_form(props: &InputsProps) -> Html {
     let report = &state.plan.report;
     html! {
         <form class="inputs" onsubmit={Callback::from(|e: SubmitEvent| e.prevent_default())} aria-label="Scenario inputs">
-            <NameField state={state.clone()} dispatch={dispatch.clone()} />
+            { name_field(props) }
             <CameraGroup state={state.clone()} dispatch={dispatch.clone()} />
             <LensGroup state={state.clone()} dispatch={dispatch.clone()} />
             <BandGroup state={state.clone()} dispatch={dispatch.clone()} />

@@ -2,7 +2,7 @@
 
 use super::field::Choice;
 use super::inputs::use_action;
-use super::theme::ThemeToggle;
+use super::theme::use_theme_toggle;
 use crate::core::presets::demo;
 use crate::core::words::units::Units;
 use crate::ui::state::Action;
@@ -34,6 +34,7 @@ pub fn header(props: &HeaderProps) -> Html {
         }
     });
     let on_units = use_action(&props.dispatch, |units: String| Action::set("units", units));
+    let theme = use_theme_toggle();
     html! {
         <header class="top">
             <div class="brand">
@@ -44,7 +45,7 @@ pub fn header(props: &HeaderProps) -> Html {
                 <Choice id="demo" label="Demos" options={demo_options} selected="" on_change={on_demo} />
                 <Choice id="units" label="Units" options={vec![("metric".into(), "Metric".into()), ("imperial".into(), "Imperial".into())]}
                     selected={AttrValue::from(props.units.key())} on_change={on_units} />
-                <ThemeToggle />
+                { theme }
             </div>
         </header>
     }

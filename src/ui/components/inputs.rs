@@ -404,6 +404,32 @@ pub fn survey_group(props: &InputsProps) -> Html {
             }
         })
     };
+    // A boundary file, read by its module into the boundary field; what it says is shown where
+    // the device's position is (one status line for the group).
+    let reader = use_mut_ref(|| None::<gloo::file::callbacks::FileReader>);
+    let on_import = {
+        let (dispatch, said) = (props.dispatch.clone(), locating.clone());
+        Callback::from(move |e: Event| {
+            let input: web_sys::HtmlInputElement = e.target_unchecked_into();
+            let (dispatch, said) = (dispatch.clone(), said.clone());
+            let task = browser::read_chosen_file(
+                &input,
+                Box::new(move |name, text| {
+                    let text = text.unwrap_or_default();
+                    crate::ui::field::read(&name.clone(), &text, move |read| match read {
+                        Ok(field) => {
+                            said.set(Some(format!("Read {name}.")));
+                            dispatch.emit(Action::set("field", field));
+                        }
+                        Err(problem) => said.set(Some(format!("{name}: {problem}"))),
+                    });
+                }),
+            );
+            if task.is_some() {
+                *reader.borrow_mut() = task;
+            }
+        })
+    };
     html! {
         <fieldset class="group" id="group-survey">
             <legend>{ "Survey area and aircraft" }</legend>
@@ -415,10 +441,14 @@ pub fn survey_group(props: &InputsProps) -> Html {
             { pair(field(props, "lat", None), field(props, "lon", None)) }
             <p class="locate">
                 <button type="button" id="locate" onclick={on_locate}>{ "Use this device's position" }</button>
-                if let Some(message) = &*locating { <span class="note" role="status">{ format!(" {message}") }</span> }
+                if let Some(message) = &*locating { <span class="note" role="status" id="survey-status">{ format!(" {message}") }</span> }
             </p>
             { field(props, "hdg", None) }
             { field(props, "field", Some("lon lat points, commas between; ';' before a hole".to_string())) }
+            <p class="locate">
+                <label class="file-label" for="import-boundary">{ "Import a boundary (GeoJSON, KML)" }</label>
+                <input id="import-boundary" type="file" accept=".geojson,.json,.kml" onchange={on_import} />
+            </p>
             { field(props, "relief", Some("lowest,highest, e.g. -5,25; the height is then above take-off".to_string())) }
             { pair(field(props, "wind", None), field(props, "wdir", None)) }
         </fieldset>

@@ -26,31 +26,6 @@ fn field(props: &InputsProps, key: &'static str, hint: Option<&str>) -> Html {
     }
 }
 
-/// The date and time field: ISO 8601 text, kept as typed, with the device's clock as a start.
-#[function_component(WhenField)]
-fn when_field(props: &InputsProps) -> Html {
-    let error = props.state.error("when");
-    let oninput = use_action(&props.dispatch, |e: InputEvent| {
-        Action::set("when", e.target_unchecked_into::<HtmlInputElement>().value())
-    });
-    let on_now = use_action(&props.dispatch, |_: MouseEvent| {
-        Action::set("when", browser::now_local_iso())
-    });
-    html! {
-        <div class={classes!("field", error.is_some().then_some("invalid"))}>
-            <label for="in-when">{ "Date and time" }<span class="unit">{ " (local, with UTC offset)" }</span></label>
-            <input id="in-when" name="when" type="text" autocomplete="off" spellcheck="false" placeholder="2026-06-21T10:30+02:00"
-                value={props.state.text("when")} {oninput} aria-invalid={error.is_some().to_string()}
-                aria-describedby={error.is_some().then_some("err-when")} />
-            <span class="hint">
-                <button type="button" id="when-now" onclick={on_now}>{ "Use this device's clock" }</button>
-                { " The place is the survey origin (latitude, longitude) below." }
-            </span>
-            if let Some(error) = error { <span class="error" id="err-when" role="alert">{ error }</span> }
-        </div>
-    }
-}
-
 /// Light: when and where, the sky or a measured illuminance, how the exposure is set, the sensor.
 #[function_component(LightGroup)]
 pub fn light_group(props: &InputsProps) -> Html {
@@ -80,10 +55,28 @@ pub fn light_group(props: &InputsProps) -> Html {
         "set"
     };
     let on_mode = use_action(&props.dispatch, |word: String| Action::set("expmode", word));
+    // The date and time: ISO 8601 text, kept as typed, with the device's clock as a start.
+    let error = state.error("when");
+    let oninput = use_action(&props.dispatch, |e: InputEvent| {
+        Action::set("when", e.target_unchecked_into::<HtmlInputElement>().value())
+    });
+    let on_now = use_action(&props.dispatch, |_: MouseEvent| {
+        Action::set("when", browser::now_local_iso())
+    });
     html! {
         <fieldset class="group" id="group-light">
             <legend>{ "Light and exposure" }</legend>
-            <WhenField state={state.clone()} dispatch={props.dispatch.clone()} />
+            <div class={classes!("field", error.is_some().then_some("invalid"))}>
+                <label for="in-when">{ "Date and time" }<span class="unit">{ " (local, with UTC offset)" }</span></label>
+                <input id="in-when" name="when" type="text" autocomplete="off" spellcheck="false" placeholder="2026-06-21T10:30+02:00"
+                    value={state.text("when")} {oninput} aria-invalid={error.is_some().to_string()}
+                    aria-describedby={error.is_some().then_some("err-when")} />
+                <span class="hint">
+                    <button type="button" id="when-now" onclick={on_now}>{ "Use this device's clock" }</button>
+                    { " The place is the survey origin (latitude, longitude) below." }
+                </span>
+                if let Some(error) = error { <span class="error" id="err-when" role="alert">{ error }</span> }
+            </div>
             <Choice id="sky" label="Sky" options={skies} selected={sky} on_change={on_sky} />
             { field(props, "lux", Some("measured, instead of the sun's (leave empty)")) }
             <Choice id="expmode" label="Exposure time" options={modes} selected={mode} on_change={on_mode} />

@@ -5,8 +5,9 @@ use crate::ui::state::Action;
 use web_sys::HtmlInputElement;
 use yew::prelude::*;
 
-/// The scenario name, kept as typed, with its error if it was rejected.
-#[function_component(NameField)]
+/// The scenario name, kept as typed, with its error if it was rejected (drawn by the form: a
+/// component of its own would cost more code than it saves work, as the form draws it anew with
+/// every change anyway).
 pub fn name_field(props: &InputsProps) -> Html {
     let on_name = props.dispatch.reform(|e: InputEvent| {
         let input: HtmlInputElement = e.target_unchecked_into();

@@ -16,9 +16,9 @@ fn theme_name(contrast: bool) -> &'static str {
     }
 }
 
-/// The "High contrast" toggle button.
-#[function_component(ThemeToggle)]
-pub fn theme_toggle() -> Html {
+/// The "High contrast" toggle button (a hook of the header, which draws it).
+#[hook]
+pub fn use_theme_toggle() -> Html {
     let contrast = use_state(|| browser::storage_get(THEME_KEY).ok().flatten().as_deref() == Some(theme_name(true)));
     use_effect_with(*contrast, |on| browser::set_theme(theme_name(*on)));
     let onclick = {

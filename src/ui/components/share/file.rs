@@ -26,17 +26,17 @@ pub fn library_file(props: &LibraryFileProps) -> Html {
         let library = props.library.clone();
         Callback::from(move |e: Event| {
             let input: HtmlInputElement = e.target_unchecked_into();
-            let Some(file) = input.files().and_then(|files| files.get(0)) else {
-                return;
-            };
-            let file = gloo::file::File::from(file);
             let library = library.clone();
-            let task = gloo::file::callbacks::read_as_text(&file, move |result| match result {
-                Ok(text) => library.import(&text),
-                Err(_) => library.tell("The file could not be read.".to_string()),
-            });
-            *reader.borrow_mut() = Some(task);
-            input.set_value("");
+            let task = browser::read_chosen_file(
+                &input,
+                Box::new(move |_, text| match text {
+                    Some(text) => library.import(&text),
+                    None => library.tell("The file could not be read.".to_string()),
+                }),
+            );
+            if task.is_some() {
+                *reader.borrow_mut() = task;
+            }
         })
     };
     html! {
