@@ -219,7 +219,8 @@ fn exported() -> (Boundary, FieldPlan, ExportFacts<'static>) {
     let b = boundary(&SQUARE, &[hole]);
     let p = plan_field(&b, &layout(30.0)).unwrap();
     let facts = ExportFacts {
-        name: "Creek & dam paddock",
+        // Quotes, a backslash, a new line and an ampersand: each format must escape its own.
+        name: "Creek \"dam\" & paddock\\2\n",
         height_m: 80.0,
         gsd_m: 0.0219,
         base_m: 20.0,
@@ -245,7 +246,7 @@ fn geojson_written_is_read_back_by_the_geojson_crate() {
     );
     assert_eq!(
         boundary.property("name").and_then(|v| v.as_str()),
-        Some("Creek & dam paddock")
+        Some("Creek \"dam\" & paddock\\2\n")
     );
     // The boundary reads back as it was (the reader takes the first polygon's rings).
     let again = read_geojson(&text).unwrap();

@@ -19,7 +19,6 @@ use crate::ui::components::results::Results;
 use crate::ui::components::share::SharePanel;
 use crate::ui::components::solve::SolvePanel;
 use crate::ui::components::survey::SurveyPanel;
-use crate::ui::components::target::TargetPanel;
 use crate::ui::state::{Action, State};
 use std::rc::Rc;
 use wasm_bindgen::closure::Closure;
@@ -214,8 +213,7 @@ pub fn app() -> Html {
                 <Results state={snapshot.clone()} />
                 <Cautions state={shown("cautions")} />
                 <LimitsChart state={shown("chart")} chart={chart_shown} />
-                <SolvePanel state={shown("solve")} />
-                <TargetPanel state={shown("target")} />
+                <SolvePanel state={shown("solve")} target={shown("target")} />
                 <LightPanel state={shown("light")} dispatch={dispatch.clone()} />
                 <SurveyPanel state={shown("survey")} />
                 <SharePanel state={snapshot.clone()} dispatch={dispatch.clone()} {on_print} link={link.clone()} qr={qr.clone()} />

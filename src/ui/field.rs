@@ -7,6 +7,7 @@
 //! `[false, the problem in words]`.
 
 use crate::core::formats::boundary::Boundary;
+use crate::core::formats::field_export::{field_csv, field_geojson, field_kml, ExportFacts};
 use crate::core::planning::field::{plan_field, suggest_headings, FieldLayout, FieldPlan};
 use crate::core::words::format;
 use crate::core::words::units::Units;
@@ -219,11 +220,12 @@ fn draw(
         }
     ));
     m.tag("</figcaption></figure>");
+    m.tag(r#"<p class="export">Download the plan over the boundary: <button type="button" data-export="geojson">GeoJSON</button> <button type="button" data-export="kml">KML</button> <button type="button" data-export="csv">Photo centres (CSV)</button></p>"#);
     m.into_string()
 }
 
 /// The answer to one request: the figures and drawing, or the problem in words.
-fn answer(field: &str, numbers: &[f64]) -> Result<String, String> {
+fn answer(field: &str, numbers: &[f64], export: Option<(&str, &str, f64, f64)>) -> Result<String, String> {
     let n = |i: usize| numbers.get(i).copied().unwrap_or(f64::NAN);
     let layout = FieldLayout {
         heading_deg: n(0),
@@ -244,6 +246,20 @@ fn answer(field: &str, numbers: &[f64]) -> Result<String, String> {
     let units = if n(10) == 1.0 { Units::Imperial } else { Units::Metric };
     let boundary = Boundary::from_text(field).map_err(|p| p.message())?;
     let plan = plan_field(&boundary, &layout).map_err(|p| p.message().to_string())?;
+    if let Some((format, name, height_m, gsd_m)) = export {
+        let facts = ExportFacts {
+            name,
+            height_m,
+            gsd_m,
+            base_m: layout.base_m,
+            line_spacing_m: layout.line_spacing_m,
+        };
+        return Ok(match format {
+            "kml" => field_kml(&boundary, &plan, &facts),
+            "csv" => field_csv(&plan, &facts),
+            _ => field_geojson(&boundary, &plan, &facts),
+        });
+    }
     let suggested = suggest_headings(&boundary, &layout);
     Ok(draw(&plan, suggested, units))
 }
@@ -253,7 +269,13 @@ pub fn serve() {
     worker::serve(|request| {
         let field = request.get(0).as_string().unwrap_or_default();
         let numbers: Vec<f64> = (1..12).map(|i| request.get(i).as_f64().unwrap_or(f64::NAN)).collect();
-        worker::text_answer(answer(&field, &numbers))
+        let text = |i: u32| request.get(i).as_string().unwrap_or_default();
+        let (format, name) = (text(12), text(13));
+        let export = (!format.is_empty()).then(|| {
+            let n = |i: u32| request.get(i).as_f64().unwrap_or(f64::NAN);
+            (format.as_str(), name.as_str(), n(14), n(15))
+        });
+        worker::text_answer(answer(&field, &numbers, export))
     });
 }
 
@@ -262,6 +284,28 @@ pub fn serve() {
 pub fn plan(field: &str, layout: &FieldLayout, units: Units, done: impl FnOnce(Result<String, String>) + 'static) {
     let mut request = vec![JsValue::from_str(field)];
     request.extend(request_numbers(layout, units).iter().map(|v| JsValue::from_f64(*v)));
+    worker::ask_text(LOADER, &request, done);
+}
+
+/// In the page: asks the worker for the boundary plan of `field` as a file, `format` `geojson`,
+/// `kml` or `csv` (photo centres), named `name`, flown `height_m` above take-off with GSD `gsd_m`.
+#[allow(clippy::too_many_arguments)]
+pub fn export(
+    field: &str,
+    layout: &FieldLayout,
+    format: &str,
+    name: &str,
+    height_m: f64,
+    gsd_m: f64,
+    done: impl FnOnce(Result<String, String>) + 'static,
+) {
+    let mut request = vec![JsValue::from_str(field)];
+    request.extend(
+        request_numbers(layout, Units::Metric)
+            .iter()
+            .map(|v| JsValue::from_f64(*v)),
+    );
+    request.extend([format.into(), name.into(), height_m.into(), gsd_m.into()]);
     worker::ask_text(LOADER, &request, done);
 }
 

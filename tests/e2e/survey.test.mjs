@@ -233,6 +233,30 @@ test('a boundary typed in: lines, photos and time over it from the on-demand mod
   assert.equal(await page.locator('#survey .field-map .north').count(), 1);
   // The printed sheet carries the drawing too.
   await page.locator('.print-sheet .field-map').waitFor({ state: 'attached', timeout: 20000 });
+  // The plan over the boundary downloads as GeoJSON, KML and a CSV of photo centres, in step
+  // with the report.
+  const downloaded = async (format) => {
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.click(`#survey .boundary button[data-export=${format}]`),
+    ]);
+    return { name: download.suggestedFilename(), text: readFileSync(await download.path(), 'utf8') };
+  };
+  const geo = await downloaded('geojson');
+  assert.match(geo.name, /\.geojson$/);
+  const kinds = JSON.parse(geo.text).features.map((f) => f.properties.kind);
+  assert.equal(kinds.filter((k) => k === 'photo').length, rep.field_photos);
+  assert.equal(kinds.filter((k) => k === 'flight_line').length, rep.field_stretches);
+  assert.equal(kinds.filter((k) => k === 'boundary').length, 1);
+  const kml = await downloaded('kml');
+  assert.match(kml.name, /\.kml$/);
+  assert.equal((kml.text.match(/<Point>/g) ?? []).length, rep.field_photos);
+  const csv = await downloaded('csv');
+  const rows = csv.text.trim().split('\n');
+  assert.equal(rows[0], 'latitude,longitude,height_m,line,index,trigger_m');
+  assert.equal(rows.length - 1, rep.field_photos);
+  const [lat, lon] = rows[1].split(',').map(Number);
+  assert.ok(Math.abs(lat - rep.photo_points[0].lat) < 1e-9 && Math.abs(lon - rep.photo_points[0].lon) < 1e-9, rows[1]);
   // A ring that crosses itself is named with its place; the text typed stays.
   const bowTie = '146.29 -36.85,146.2945 -36.8464,146.2945 -36.85,146.29 -36.8464';
   await page.fill('#in-field', bowTie);

@@ -6,7 +6,6 @@
 
 use crate::core::formats::boundary::Boundary;
 use crate::core::planning::field::FieldPlan;
-use serde_json::{json, Value};
 
 /// What every export carries about the plan besides the geometry.
 #[derive(Clone, Debug, PartialEq)]
@@ -50,51 +49,79 @@ fn wound(ring: &[[f64; 2]], outer: bool) -> Vec<[f64; 2]> {
 /// figures), every flight stretch (a LineString with its line number) and every photo centre (a
 /// Point with its line, index and trigger distance).
 pub fn field_geojson(boundary: &Boundary, plan: &FieldPlan, facts: &ExportFacts) -> String {
-    let polygons: Vec<Vec<Vec<[f64; 2]>>> = boundary
+    // Written as text (no JSON library: this runs in the boundary module, whose budget a JSON
+    // writer would pass); the tests read it back with the geojson crate.
+    let point = |p: &[f64; 2]| format!("[{},{}]", json_number(p[0]), json_number(p[1]));
+    let ring = |r: &[[f64; 2]]| format!("[{}]", r.iter().map(point).collect::<Vec<_>>().join(","));
+    let polygons: Vec<String> = boundary
         .areas
         .iter()
         .map(|a| {
-            std::iter::once(wound(&a.outer, true))
-                .chain(a.holes.iter().map(|h| wound(h, false)))
-                .collect()
+            let rings: Vec<String> = std::iter::once(ring(&wound(&a.outer, true)))
+                .chain(a.holes.iter().map(|h| ring(&wound(h, false))))
+                .collect();
+            format!("[{}]", rings.join(","))
         })
         .collect();
-    let mut features = vec![json!({
-        "type": "Feature",
-        "geometry": { "type": "MultiPolygon", "coordinates": polygons },
-        "properties": {
-            "kind": "boundary",
-            "name": facts.name,
-            "area_m2": plan.area_m2,
-            "heading_deg": plan.heading_deg,
-            "height_m": facts.height_m,
-            "gsd_m": facts.gsd_m,
-            "base_m": facts.base_m,
-            "line_spacing_m": facts.line_spacing_m,
-            "lines": plan.lines,
-            "photos": plan.photos,
-            "path_length_m": plan.path_length_m,
-            "flight_time_s": plan.flight_time_s,
-            "batteries": plan.batteries,
-            "storage_mb": plan.storage_mb,
-        },
-    })];
+    let optional = |v: Option<f64>| v.map_or_else(|| "null".to_string(), json_number);
+    let mut features = vec![format!(
+        r#"{{"type":"Feature","geometry":{{"type":"MultiPolygon","coordinates":[{}]}},"properties":{{"kind":"boundary","name":{},"area_m2":{},"heading_deg":{},"height_m":{},"gsd_m":{},"base_m":{},"line_spacing_m":{},"lines":{},"photos":{},"path_length_m":{},"flight_time_s":{},"batteries":{},"storage_mb":{}}}}}"#,
+        polygons.join(","),
+        json_string(facts.name),
+        json_number(plan.area_m2),
+        json_number(plan.heading_deg),
+        json_number(facts.height_m),
+        json_number(facts.gsd_m),
+        json_number(facts.base_m),
+        json_number(facts.line_spacing_m),
+        plan.lines,
+        plan.photos,
+        json_number(plan.path_length_m),
+        optional(plan.flight_time_s),
+        plan.batteries.map_or_else(|| "null".to_string(), |b| b.to_string()),
+        optional(plan.storage_mb),
+    )];
     features.extend(plan.stretches.iter().map(|s| {
-        json!({
-            "type": "Feature",
-            "geometry": { "type": "LineString", "coordinates": s.ends },
-            "properties": { "kind": "flight_line", "line": s.line },
-        })
+        format!(
+            r#"{{"type":"Feature","geometry":{{"type":"LineString","coordinates":{}}},"properties":{{"kind":"flight_line","line":{}}}}}"#,
+            ring(&s.ends),
+            s.line
+        )
     }));
     features.extend(plan.photo_points.iter().map(|p| {
-        json!({
-            "type": "Feature",
-            "geometry": { "type": "Point", "coordinates": [p.lon, p.lat] },
-            "properties": { "kind": "photo", "line": p.line, "index": p.index, "trigger_m": p.trigger_m },
-        })
+        format!(
+            r#"{{"type":"Feature","geometry":{{"type":"Point","coordinates":{}}},"properties":{{"kind":"photo","line":{},"index":{},"trigger_m":{}}}}}"#,
+            point(&[p.lon, p.lat]),
+            p.line,
+            p.index,
+            json_number(p.trigger_m)
+        )
     }));
-    let collection: Value = json!({ "type": "FeatureCollection", "features": features });
-    collection.to_string()
+    format!(r#"{{"type":"FeatureCollection","features":[{}]}}"#, features.join(","))
+}
+
+/// A number as JSON writes it (JSON has no NaN or infinity: null).
+fn json_number(x: f64) -> String {
+    if x.is_finite() {
+        format!("{x}")
+    } else {
+        "null".to_string()
+    }
+}
+
+/// A string as JSON writes it: quoted, with quotes, backslashes and control characters escaped.
+fn json_string(text: &str) -> String {
+    let mut out = String::from("\"");
+    for c in text.chars() {
+        match c {
+            '"' => out.push_str("\\\""),
+            '\\' => out.push_str("\\\\"),
+            c if (c as u32) < 0x20 => out.push_str(&format!("\\u{:04x}", c as u32)),
+            c => out.push(c),
+        }
+    }
+    out.push('"');
+    out
 }
 
 /// Text made safe for XML.

@@ -10,10 +10,12 @@ use crate::ui::state::State;
 use std::rc::Rc;
 use yew::prelude::*;
 
-/// Properties of the solve panel.
+/// Properties of the solve panel, which draws the target panel after it.
 #[derive(Properties, PartialEq, Clone)]
 pub struct SolveProps {
     pub state: Rc<State>,
+    /// The state the target panel is shown with (each panel out of view shows the settled one).
+    pub target: Rc<State>,
 }
 
 fn crossing_text(crossing: &Crossing, a: Limit, noun: &str, length: &dyn Fn(f64) -> String) -> String {
@@ -120,9 +122,12 @@ pub fn solve_panel(props: &SolveProps) -> Html {
     }
     m.tag("</ul>");
     html! {
+        <>
         <section class="panel" id="solve" aria-labelledby="solve-title">
             <h2 id="solve-title">{ "How high or how far" }</h2>
             { m.html() }
         </section>
+        { super::target::target_panel(&props.target) }
+        </>
     }
 }

@@ -185,33 +185,60 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
     // What the last export said, for the scenario it was asked for (a problem only the export finds).
     let answer = use_state(|| None::<(Scenario, String)>);
     let words = &plan.report.survey_words;
-    let on_export = {
-        let (answer, scenario) = (answer.clone(), scenario.clone());
-        Callback::from(move |_| {
-            let (answer, asked) = (answer.clone(), scenario.clone());
-            let name = scenario.name.clone();
-            // Built by the on-demand module, which loads the first time this is pressed.
-            export::geojson(&scenario.to_query(), move |result| match result {
-                Ok(json) => {
-                    browser::download(&browser::file_name(&name, "geojson"), "application/geo+json", &json);
-                    answer.set(None);
-                }
-                Err(problem) => answer.set(Some((asked, problem))),
-            });
-        })
-    };
     let problem = match (&ready, &*answer) {
         (Err(problem), _) => Some(problem.message().to_string()),
         (Ok(()), Some((asked, problem))) if asked == scenario => Some(problem.clone()),
         _ => None,
     };
     let boundary = use_boundary(plan);
+    // The downloads: the rectangle's GeoJSON (the export module) and the boundary plan's GeoJSON,
+    // KML and CSV (the boundary module, which draws their buttons); every button carries what it
+    // downloads in `data-export`, and one listener on the panel hears them all.
+    let on_click = {
+        let (field_text, name, height_m, gsd_m, query) = (
+            scenario.field.clone(),
+            scenario.name.clone(),
+            scenario.height_m,
+            plan.evaluation.gsd_m,
+            scenario.to_query(),
+        );
+        let (answer, asked) = (answer.clone(), scenario.clone());
+        let layout = FieldLayout::of(
+            s,
+            scenario.survey.heading_deg,
+            scenario.survey.turn_s,
+            scenario.survey.endurance_min,
+            scenario.survey.photo_mb,
+        );
+        Callback::from(move |e: MouseEvent| {
+            let format = e
+                .target_dyn_into::<web_sys::Element>()
+                .and_then(|t| t.get_attribute("data-export"))
+                .unwrap_or_default();
+            let (extension, mime) = match format.as_str() {
+                "area" | "geojson" => ("geojson", "application/geo+json"),
+                "kml" => ("kml", "application/vnd.google-earth.kml+xml"),
+                "csv" => ("csv", "text/csv"),
+                _ => return,
+            };
+            let file = browser::file_name(&name, extension);
+            let (answer, asked) = (answer.clone(), asked.clone());
+            let done = move |result: Result<String, String>| match result {
+                Ok(text) => {
+                    browser::download(&file, mime, &text);
+                    answer.set(None);
+                }
+                Err(problem) => answer.set(Some((asked, problem))),
+            };
+            if format == "area" {
+                // Built by the on-demand module, which loads the first time this is pressed.
+                export::geojson(&query, done);
+            } else {
+                field::export(&field_text, &layout, &format, &name, height_m, gsd_m, done);
+            }
+        })
+    };
     let mut m = Markup::default();
-    if let Some(b) = boundary {
-        m.tag(r#"<div class="boundary"><h3>Over the boundary</h3>"#)
-            .tag(&b)
-            .tag("</div><h3>The rectangle (quick estimate)</h3>");
-    }
     m.tag(r#"<dl class="figures">"#);
     row(&mut m, "Footprint of one photo", |m| {
         m.figure("footprint_across_m", s.footprint_across_m, &len(s.footprint_across_m))
@@ -310,12 +337,19 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
         m.tag(r#"<p class="note">"#).text(n).tag("</p>");
     }
     html! {
-        <section class="panel" id="survey" aria-labelledby="survey-title">
+        <section class="panel" id="survey" aria-labelledby="survey-title" onclick={on_click}>
             <h2 id="survey-title">{ "Survey layout" }</h2>
+            if let Some(b) = boundary {
+                <div class="boundary">
+                    <h3>{ "Over the boundary" }</h3>
+                    { Html::from_html_unchecked(AttrValue::from(b)) }
+                </div>
+                <h3>{ "The rectangle (quick estimate)" }</h3>
+            }
             { m.html() }
             if let Some(l) = &plan.layout { { diagram(l, units, "screen") } }
             <p class="export">
-                <button type="button" onclick={on_export} disabled={ready.is_err()}>{ "Download flight lines (GeoJSON)" }</button>
+                <button type="button" data-export="area" disabled={ready.is_err()}>{ "Download flight lines (GeoJSON)" }</button>
                 if let Some(problem) = problem { <span class="note">{ format!(" {problem}") }</span> }
             </p>
         </section>

@@ -7,14 +7,7 @@ use crate::core::words::notes;
 use crate::core::words::units::Units;
 use crate::ui::markup::Markup;
 use crate::ui::state::State;
-use std::rc::Rc;
 use yew::prelude::*;
-
-/// Properties of the target panel.
-#[derive(Properties, PartialEq, Clone)]
-pub struct TargetProps {
-    pub state: Rc<State>,
-}
 
 /// One task range: a figure when bounded, words when met everywhere or nowhere.
 /// `key` is the figure's path in the report (`task_ranges.0.p50_m`).
@@ -32,12 +25,13 @@ fn range_cell(m: &mut Markup, reach: &Reach, key: &str, units: Units) {
     }
 }
 
-/// The target panel (its figures written as text: `ui::markup`).
-#[function_component(TargetPanel)]
-pub fn target_panel(props: &TargetProps) -> Html {
-    let report = &props.state.plan.report;
-    let units = props.state.plan.scenario.units;
-    let axis = props.state.plan.sweep.axis;
+/// The target panel (its figures written as text: `ui::markup`), drawn by the solve panel's
+/// component (a component of its own costs about 1 kB of the first load) from the state it is
+/// shown with.
+pub fn target_panel(state: &State) -> Html {
+    let report = &state.plan.report;
+    let units = state.plan.scenario.units;
+    let axis = state.plan.sweep.axis;
     let (Some(size), Some(cycles)) = (report.target_m, report.target_cycles) else {
         return html! {
             <section class="panel" id="target"><h2>{ "What a target will look like" }</h2>
