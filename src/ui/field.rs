@@ -123,6 +123,14 @@ fn draw(
             b.to_string(),
         );
     }
+    if let Some(mb) = plan.storage_mb {
+        let text = if mb >= 1000.0 {
+            format!("{} GB", format::significant(mb / 1000.0))
+        } else {
+            format!("{} MB", format::significant(mb))
+        };
+        row(&mut m, "Storage over the boundary", "field_storage_mb", mb, text);
+    }
     m.tag("</dl>");
     if let Some((fewest, shortest)) = suggested {
         m.tag(r#"<p class="note" data-key="heading_fewest_lines">"#)

@@ -161,7 +161,7 @@ test('loaded once, the app opens and computes with the server stopped; without t
   await page.context().close();
 });
 
-test('after one visit both on-demand modules work with the server stopped: the export, the sun and the QR code', async () => {
+test('after one visit every on-demand module works with the server stopped: the export, the sun and the QR code, a boundary file read and laid out', async () => {
   const site = await servedCopy();
   const page = await openPage(app.browser, `${site.origin}/?${SURVEY}&lat=-36.85&lon=146.29&when=2026-11-02T10%3A30%2B11%3A00`, { contextOptions: { acceptDownloads: true } });
   await precached(page, site.dir);
@@ -173,6 +173,11 @@ test('after one visit both on-demand modules work with the server stopped: the e
   await page.waitForSelector('.qr-code path', { timeout: 15000 });
   const [download] = await Promise.all([page.waitForEvent('download'), page.click('#survey .export button')]);
   assert.equal(JSON.parse(readFileSync(await download.path(), 'utf8')).type, 'FeatureCollection');
+  // A boundary file: read by its module, laid out and drawn by the boundary module.
+  const ring = [[146.29, -36.85], [146.2945, -36.85], [146.2945, -36.8464], [146.29, -36.8464], [146.29, -36.85]];
+  const file = JSON.stringify({ type: 'Polygon', coordinates: [ring] });
+  await page.setInputFiles('#import-boundary', { name: 'paddock.geojson', mimeType: 'application/geo+json', buffer: Buffer.from(file) });
+  await page.waitForSelector('#survey .field-map', { timeout: 15000 });
   assert.deepEqual(page.errors, []);
   await page.context().close();
 });
