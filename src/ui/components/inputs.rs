@@ -79,8 +79,9 @@ fn reads_as(state: &State, key: &str, value: f64) -> bool {
 }
 
 /// Camera: a generic sensor format or custom sensor size and pixel count.
-#[function_component(CameraGroup)]
-pub fn camera_group(props: &InputsProps) -> Html {
+/// (A hook the form calls: a component of its own costs more code than the redraw it saves.)
+#[hook]
+pub fn use_camera_group(props: &InputsProps) -> Html {
     let state = &props.state;
     let selected = SENSOR_FORMATS
         .iter()
@@ -121,8 +122,8 @@ pub fn camera_group(props: &InputsProps) -> Html {
     }
 }
 
-/// Lens: focal length, f-number, and how far from perfect it is.
-#[function_component(LensGroup)]
+/// Lens: focal length, f-number, and how far from perfect it is (drawn by the form: it has no
+/// state of its own, and the form draws it anew on every change anyway).
 pub fn lens_group(props: &InputsProps) -> Html {
     let aperture = props.state.plan.report.aperture_m;
     html! {
@@ -136,8 +137,9 @@ pub fn lens_group(props: &InputsProps) -> Html {
 }
 
 /// Band: a named band or a wavelength.
-#[function_component(BandGroup)]
-pub fn band_group(props: &InputsProps) -> Html {
+/// (A hook the form calls: a component of its own costs more code than the redraw it saves.)
+#[hook]
+pub fn use_band_group(props: &InputsProps) -> Html {
     let state = &props.state;
     let selected = BANDS
         .iter()
@@ -161,8 +163,9 @@ pub fn band_group(props: &InputsProps) -> Html {
 }
 
 /// Geometry: height, and straight down, tilted, or a target at a ground distance.
-#[function_component(GeometryGroup)]
-pub fn geometry_group(props: &InputsProps) -> Html {
+/// (A hook the form calls: a component of its own costs more code than the redraw it saves.)
+#[hook]
+pub fn use_geometry_group(props: &InputsProps) -> Html {
     let state = &props.state;
     let mode = if state.raw.get("tilt").is_some() {
         "tilt"
@@ -250,8 +253,9 @@ const AIR_PRESETS: &[(&str, &str, &str, &str, &str)] = &[
 ];
 
 /// Air: the turbulence along the path.
-#[function_component(AirGroup)]
-pub fn air_group(props: &InputsProps) -> Html {
+/// (A hook the form calls: a component of its own costs more code than the redraw it saves.)
+#[hook]
+pub fn use_air_group(props: &InputsProps) -> Html {
     let state = &props.state;
     let air = state.text("air");
     let air = if air.is_empty() { "none".to_string() } else { air };
@@ -295,8 +299,8 @@ pub fn air_group(props: &InputsProps) -> Html {
     }
 }
 
-/// Motion: ground speed, exposure time, turning, the target's speed and jitter.
-#[function_component(MotionGroup)]
+/// Motion: ground speed, exposure time, turning, the target's speed and jitter (drawn by the form,
+/// as the lens group is).
 pub fn motion_group(props: &InputsProps) -> Html {
     let speed_hint = props
         .state
@@ -324,8 +328,9 @@ const TARGET_PRESETS: &[(&str, &str, &str)] = &[
 ];
 
 /// What is needed: a resolution on the ground, and a target to judge.
-#[function_component(NeedGroup)]
-pub fn need_group(props: &InputsProps) -> Html {
+/// (A hook the form calls: a component of its own costs more code than the redraw it saves.)
+#[hook]
+pub fn use_need_group(props: &InputsProps) -> Html {
     let state = &props.state;
     let selected = TARGET_PRESETS
         .iter()
