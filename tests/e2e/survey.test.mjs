@@ -293,3 +293,23 @@ test('a boundary file imported: GeoJSON and KML read by their own modules into t
   assert.equal(await page.isHidden('#crash-notice'), true);
   await page.context().close();
 });
+
+test('walking the field: the device position added corner by corner makes the boundary', async () => {
+  const context = await app.browser.newContext({
+    permissions: ['geolocation'],
+    geolocation: { latitude: -36.85, longitude: 146.29 },
+  });
+  const page = await context.newPage();
+  await page.goto(`${app.origin}/?${FIELD}`);
+  await page.waitForSelector('[data-key="limit_m"]');
+  const corners = [[-36.85, 146.29], [-36.85, 146.2945], [-36.8464, 146.2945], [-36.8464, 146.29]];
+  for (const [i, [latitude, longitude]] of corners.entries()) {
+    await context.setGeolocation({ latitude, longitude });
+    await page.click('#add-corner');
+    await page.waitForFunction((n) => (new URLSearchParams(location.search).get('field') ?? '').split(',').length === n, i + 1);
+  }
+  assert.equal(await page.inputValue('#in-field'), '146.29 -36.85, 146.2945 -36.85, 146.2945 -36.8464, 146.29 -36.8464');
+  await page.locator('#survey .field-map').waitFor({ timeout: 20000 });
+  await showsReport(page);
+  await context.close();
+});

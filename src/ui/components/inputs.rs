@@ -409,6 +409,37 @@ pub fn survey_group(props: &InputsProps) -> Html {
             }
         })
     };
+    // The device's position as the next corner of the boundary (a start for typing the corners
+    // while walking the field).
+    let on_corner = {
+        let (dispatch, said, field) = (props.dispatch.clone(), locating.clone(), props.state.text("field"));
+        Callback::from(move |_| {
+            let (dispatch, said, field) = (dispatch.clone(), said.clone(), field.clone());
+            let report = said.clone();
+            let asked = browser::current_position(move |result| match result {
+                Ok((lat, lon)) => {
+                    let corner = format!(
+                        "{} {}",
+                        format_number(round_to(lon, 6)),
+                        format_number(round_to(lat, 6))
+                    );
+                    let joined = if field.trim().is_empty() {
+                        corner.clone()
+                    } else {
+                        format!("{}, {corner}", field.trim_end())
+                    };
+                    dispatch.emit(Action::set("field", joined));
+                    said.set(Some(format!("Corner {corner} added to the boundary.")));
+                }
+                Err(message) => said.set(Some(message)),
+            });
+            if !asked {
+                report.set(Some(
+                    "This browser cannot tell the device's position; type the corners instead.".to_string(),
+                ));
+            }
+        })
+    };
     // A boundary file, read by its module into the boundary field; what it says is shown where
     // the device's position is (one status line for the group).
     let reader = use_mut_ref(|| None::<gloo::file::callbacks::FileReader>);
@@ -453,6 +484,7 @@ pub fn survey_group(props: &InputsProps) -> Html {
             <p class="locate">
                 <label class="file-label" for="import-boundary">{ "Import a boundary (GeoJSON, KML)" }</label>
                 <input id="import-boundary" type="file" accept=".geojson,.json,.kml" onchange={on_import} />
+                <button type="button" id="add-corner" onclick={on_corner}>{ "Add this device's position as a corner" }</button>
             </p>
             { field(props, "relief", Some("lowest,highest, e.g. -5,25; the height is then above take-off".to_string())) }
             { pair(field(props, "wind", None), field(props, "wdir", None)) }
