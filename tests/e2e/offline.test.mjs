@@ -63,6 +63,10 @@ function cacheContents(page) {
  * file of its precache list; returns the build's version.
  */
 async function precached(page, dir) {
+  // The page's own first fetches (the second module, started once the first figures show) went
+  // to the network before the worker controlled it: let them finish before a test stops the
+  // server, or one cut short is reported as "Failed to fetch" (seen under load).
+  await page.waitForSelector('main[data-settled="true"]', { timeout: 20000 });
   const { version, precache } = serviceWorkerOf(dir);
   const want = precache.map((p) => new URL(p, page.url()).href).sort();
   await page.evaluate(() => navigator.serviceWorker.ready);
