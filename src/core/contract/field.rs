@@ -5,7 +5,7 @@
 
 use crate::core::contract::scenario::Scenario;
 use crate::core::formats::boundary::Boundary;
-use crate::core::planning::field::{plan_field, suggest_headings, FieldLayout, FieldPlan, HeadingChoice};
+use crate::core::planning::field::{plan_field, suggest_headings, FieldPlan, HeadingChoice};
 use crate::core::planning::survey::SurveyPlan;
 use serde::Serialize;
 
@@ -68,13 +68,7 @@ pub fn field_plan(scenario: &Scenario, survey: &SurveyPlan) -> Option<Result<(Bo
         Ok(b) => b,
         Err(problem) => return Some(Err(problem.message())),
     };
-    let layout = FieldLayout::of(
-        survey,
-        scenario.survey.heading_deg,
-        scenario.survey.turn_s,
-        scenario.survey.endurance_min,
-        scenario.survey.photo_mb,
-    );
+    let layout = scenario.field_layout(survey);
     Some(
         plan_field(&boundary, &layout)
             .map(|plan| (boundary, plan))
@@ -107,14 +101,7 @@ pub fn field_report(scenario: &Scenario, survey: &SurveyPlan) -> Option<FieldRep
             ..empty
         },
         Ok((boundary, plan)) => {
-            let layout = FieldLayout::of(
-                survey,
-                heading,
-                scenario.survey.turn_s,
-                scenario.survey.endurance_min,
-                scenario.survey.photo_mb,
-            );
-            let suggested = suggest_headings(&boundary, &layout);
+            let suggested = suggest_headings(&boundary, &scenario.field_layout(survey));
             FieldReport {
                 area_m2: Some(plan.area_m2),
                 field_lines: Some(plan.lines),

@@ -19,10 +19,10 @@ use crate::core::physics::light::sun::{CivilTime, Direction};
 use crate::core::physics::light::sun::{Spa, Sunlight};
 use crate::core::physics::target::CdModel;
 use crate::core::physics::turbulence::Profile;
-use crate::core::planning::ground::{wind_on_lines, WindInputs};
+use crate::core::planning::field::FieldLayout;
 use crate::core::planning::light::{lit, plan_light, Light, LightInputs, SunFix};
 use crate::core::planning::solve::{Axis, Need, TargetPlane};
-use crate::core::planning::survey::{SurveyInputs, SurveySettings};
+use crate::core::planning::survey::{SurveyInputs, SurveyPlan, SurveySettings};
 use crate::core::words::units::Units;
 use serde::Serialize;
 
@@ -370,17 +370,17 @@ impl Scenario {
     /// in a wind, the ground speed on the faster leg of the survey lines (the worst smear), or the
     /// planned speed when the lines cannot be flown in that wind (the survey says why).
     pub fn ground_speed_mps(&self) -> f64 {
-        let s = &self.survey;
-        if s.wind_mps == 0.0 {
-            return self.speed_mps;
+        match self.survey.wind_on_lines(self.speed_mps) {
+            Some(Ok(w)) => w.fastest_ground_speed_mps(),
+            _ => self.speed_mps,
         }
-        wind_on_lines(&WindInputs {
-            airspeed_mps: self.speed_mps,
-            wind_mps: s.wind_mps,
-            wind_from_deg: s.wind_from_deg,
-            heading_deg: s.heading_deg,
-        })
-        .map_or(self.speed_mps, |w| w.fastest_ground_speed_mps())
+    }
+
+    /// What the boundary's plan takes from this scenario and its survey `plan`: the survey's
+    /// footprint, base, spacing and speed, and the scenario's heading and time settings.
+    pub fn field_layout(&self, plan: &SurveyPlan) -> FieldLayout {
+        let s = &self.survey;
+        FieldLayout::of(plan, s.heading_deg, s.turn_s, s.endurance_min, s.photo_mb)
     }
 
     /// The engine's setup with the typed exposure time and the assumed or typed SNR.

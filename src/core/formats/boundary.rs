@@ -187,9 +187,7 @@ impl Boundary {
         for area in &mut self.areas {
             for ring in std::iter::once(&mut area.outer).chain(area.holes.iter_mut()) {
                 ring.dedup();
-                if ring.len() > 1 && ring.first() == ring.last() {
-                    ring.pop();
-                }
+                *ring = open_ring(std::mem::take(ring));
             }
         }
         let count = self.point_count();

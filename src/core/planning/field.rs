@@ -14,7 +14,7 @@
 //! finite figures or a typed reason; never panics. Runs natively (the report) and in an on-demand
 //! module, never in the page's first load.
 
-use crate::core::planning::ground::photos_to_margin;
+use crate::core::planning::ground::{ceil_forgiving, photos_to_margin, positive};
 use crate::core::planning::survey::SurveyPlan;
 use geo::{BooleanOps, BoundingRect, Coord, LineString, MultiPolygon, Polygon};
 use geographiclib_rs::{DirectGeodesic, Geodesic, InverseGeodesic, PolygonArea, Winding};
@@ -202,11 +202,6 @@ impl Frame {
     }
 }
 
-/// ceil(x) forgiving rounding noise, as the survey's counts do.
-fn ceil_forgiving(x: f64) -> f64 {
-    (x - 1e-9 * x.max(1.0)).ceil().max(0.0)
-}
-
 /// The area of the boundary on the ellipsoid (holes subtracted), m².
 pub fn area_m2(boundary: &Boundary) -> f64 {
     let geodesic = Geodesic::wgs84();
@@ -227,14 +222,28 @@ pub fn area_m2(boundary: &Boundary) -> f64 {
 
 /// Plans the boundary at `layout.heading_deg`.
 pub fn plan_field(boundary: &Boundary, layout: &FieldLayout) -> Result<FieldPlan, FieldProblem> {
-    let positive = |x: f64| x.is_finite() && x > 0.0;
+    lay_out(boundary, layout, true)
+}
+
+/// [`plan_field`]; with `place` false the photo centres and stretch ends are left unplaced on the
+/// ellipsoid (NaN longitude and latitude): the heading search needs only the counts and the path,
+/// and placing every photo by a geodesic for each heading tried would be most of its work.
+fn lay_out(boundary: &Boundary, layout: &FieldLayout, place: bool) -> Result<FieldPlan, FieldProblem> {
+    let to_lon_lat = |frame: &Frame, x: f64, y: f64| {
+        if place {
+            frame.to_lon_lat(x, y)
+        } else {
+            [f64::NAN; 2]
+        }
+    };
+    let usable = |x: f64| positive(x).is_some();
     let steps = [
         layout.footprint_across_m,
         layout.footprint_along_m,
         layout.base_m,
         layout.line_spacing_m,
     ];
-    if !steps.iter().all(|x| positive(*x)) || !layout.heading_deg.is_finite() {
+    if !steps.iter().all(|x| usable(*x)) || !layout.heading_deg.is_finite() {
         return Err(FieldProblem::Layout);
     }
     let first = boundary
@@ -355,7 +364,7 @@ pub fn plan_field(boundary: &Boundary, layout: &FieldLayout) -> Result<FieldPlan
             for i in 0..photos as usize {
                 let y = from + direction * i as f64 * base;
                 index += 1;
-                let [lon, lat] = frame.to_lon_lat(*x, y);
+                let [lon, lat] = to_lon_lat(&frame, *x, y);
                 photo_points.push(PhotoPoint {
                     lon,
                     lat,
@@ -374,7 +383,7 @@ pub fn plan_field(boundary: &Boundary, layout: &FieldLayout) -> Result<FieldPlan
                 x_m: *x,
                 from_y_m: from,
                 to_y_m: end,
-                ends: [frame.to_lon_lat(*x, from), frame.to_lon_lat(*x, end)],
+                ends: [to_lon_lat(&frame, *x, from), to_lon_lat(&frame, *x, end)],
             });
             at = Some([*x, end]);
         }
@@ -382,11 +391,11 @@ pub fn plan_field(boundary: &Boundary, layout: &FieldLayout) -> Result<FieldPlan
     let turns = lines.len().saturating_sub(1);
     let flight_time_s = layout
         .speed_mps
-        .filter(|v| positive(*v))
+        .filter(|v| usable(*v))
         .map(|v| path / v + turns as f64 * layout.turn_s.max(0.0))
         .filter(|t| t.is_finite());
     let batteries = match flight_time_s {
-        Some(t) if positive(layout.endurance_s) => Some(ceil_forgiving(t / layout.endurance_s).max(1.0) as u64),
+        Some(t) if usable(layout.endurance_s) => Some(ceil_forgiving(t / layout.endurance_s).max(1.0) as u64),
         _ => None,
     };
     let storage_mb =
@@ -436,7 +445,7 @@ pub fn suggest_headings(boundary: &Boundary, layout: &FieldLayout) -> Option<(He
     let mut fewest: Option<HeadingChoice> = None;
     let mut shortest: Option<HeadingChoice> = None;
     for heading_deg in headings {
-        let Ok(plan) = plan_field(boundary, &FieldLayout { heading_deg, ..*layout }) else {
+        let Ok(plan) = lay_out(boundary, &FieldLayout { heading_deg, ..*layout }, false) else {
             continue;
         };
         let choice = HeadingChoice {

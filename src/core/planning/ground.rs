@@ -39,18 +39,24 @@ pub const MINIMUM_SIDE_PCT: f64 = 30.0;
 /// 105104100, Photogrammetry, "Flight planning", Example 1: two at each end).
 pub const WORKED_EXAMPLE_EXTRA_PHOTOS_PER_END: u64 = 2;
 
-/// A finite, strictly positive number, or `None`.
-fn positive(x: f64) -> Option<f64> {
+/// A finite, strictly positive number, or `None` (the survey's and the boundary's too).
+pub(crate) fn positive(x: f64) -> Option<f64> {
     (x.is_finite() && x > 0.0).then_some(x)
 }
 
-/// ceil(x) for x ≥ 0 that forgives rounding noise (as the survey's count does), or `None` when x
-/// is not a usable count below `cap`.
+/// ceil(x) for a non-negative x, forgiving rounding noise: an area that is an exact multiple of the
+/// spacing (400 m at 40 m, say) must not gain a line because 400/40 came out as 10.000000000000002.
+/// Every count of the survey, its edges and the boundary's plan rounds so.
+pub(crate) fn ceil_forgiving(x: f64) -> f64 {
+    (x - 1e-9 * x.max(1.0)).ceil().max(0.0)
+}
+
+/// [`ceil_forgiving`] of x ≥ 0 as a count, or `None` when x is not a usable count below `cap`.
 fn ceil_count(x: f64, cap: u64) -> Option<u64> {
     if !(x.is_finite() && x >= 0.0) {
         return None;
     }
-    let c = (x - 1e-9 * x.max(1.0)).ceil().max(0.0);
+    let c = ceil_forgiving(x);
     (c <= cap as f64).then_some(c as u64)
 }
 

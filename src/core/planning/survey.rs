@@ -10,11 +10,11 @@
 
 use serde::Serialize;
 
-pub use crate::core::planning::ground::{flies_forward, OverlapSide, MAX_PHOTOS};
 use crate::core::planning::ground::{
-    photos_to_margin, plan_over_relief, wind_on_lines, EdgeInputs, ReliefInputs, ReliefPlan, ReliefUnusable,
-    WindInputs, WindLimit, WindOnLines,
+    ceil_forgiving, photos_to_margin, plan_over_relief, positive, wind_on_lines, EdgeInputs, ReliefInputs, ReliefPlan,
+    ReliefUnusable, WindInputs, WindLimit, WindOnLines,
 };
+pub use crate::core::planning::ground::{flies_forward, OverlapSide, MAX_PHOTOS};
 
 /// The most flight lines a plan counts; beyond it the counts are withheld with a note, since such
 /// a plan is a mistake in the inputs rather than a survey anyone will fly.
@@ -52,6 +52,21 @@ pub struct SurveySettings {
     /// a wind, the planned speed is the speed through the air.
     pub wind_mps: f64,
     pub wind_from_deg: f64,
+}
+
+impl SurveySettings {
+    /// The wind triangle of the lines flown at `airspeed_mps` through the air in this wind;
+    /// `None` in still air. The survey's figures and the engine's smear both take it from here.
+    pub fn wind_on_lines(&self, airspeed_mps: f64) -> Option<Result<WindOnLines, WindLimit>> {
+        (self.wind_mps != 0.0).then(|| {
+            wind_on_lines(&WindInputs {
+                airspeed_mps,
+                wind_mps: self.wind_mps,
+                wind_from_deg: self.wind_from_deg,
+                heading_deg: self.heading_deg,
+            })
+        })
+    }
 }
 
 /// What the survey needs: its settings, and what it takes from the camera, the lens and the view.
@@ -273,11 +288,6 @@ pub struct SurveyPlan {
     pub notes: Vec<SurveyNote>,
 }
 
-/// A finite, strictly positive number, or `None`.
-fn positive(x: f64) -> Option<f64> {
-    (x.is_finite() && x > 0.0).then_some(x)
-}
-
 /// a/b when both are usable (a ≥ 0, b > 0) and the quotient is finite.
 fn ratio(a: f64, b: f64) -> Option<f64> {
     if !(a.is_finite() && a >= 0.0) {
@@ -285,12 +295,6 @@ fn ratio(a: f64, b: f64) -> Option<f64> {
     }
     let q = a / positive(b)?;
     q.is_finite().then_some(q)
-}
-
-/// ceil(x) for a non-negative x, forgiving rounding noise: an area that is an exact multiple of the
-/// spacing (400 m at 40 m, say) must not gain a line because 400/40 came out as 10.000000000000002.
-fn ceil_forgiving(x: f64) -> f64 {
-    (x - 1e-9 * x.max(1.0)).ceil().max(0.0)
 }
 
 /// Stations on a line of `extent` at `step` apart, ceil(extent/step) + 1 (resolution-model §7),
@@ -505,16 +509,7 @@ fn speed_limits(
 /// The wind on the lines when a wind is given (`None` in still air), with a note when the lines
 /// cannot be flown in it.
 fn wind(inputs: &SurveyInputs, notes: &mut Vec<SurveyNote>) -> Option<Result<WindOnLines, WindLimit>> {
-    let s = &inputs.settings;
-    if s.wind_mps == 0.0 {
-        return None;
-    }
-    let result = wind_on_lines(&WindInputs {
-        airspeed_mps: inputs.speed_mps,
-        wind_mps: s.wind_mps,
-        wind_from_deg: s.wind_from_deg,
-        heading_deg: s.heading_deg,
-    });
+    let result = inputs.settings.wind_on_lines(inputs.speed_mps)?;
     if let Err(limit) = result {
         notes.push(SurveyNote::Wind(limit));
     }

@@ -2,7 +2,6 @@
 //! diagram and the GeoJSON export.
 
 use crate::core::contract::scenario::Scenario;
-use crate::core::planning::field::FieldLayout;
 use crate::core::planning::survey::Layout;
 use crate::core::words::format;
 use crate::ui::browser;
@@ -146,13 +145,7 @@ pub fn use_boundary(plan: &crate::core::contract::plan::Plan) -> Option<String> 
     };
     {
         let drawn = drawn.clone();
-        let layout = FieldLayout::of(
-            &plan.report.survey,
-            scenario.survey.heading_deg,
-            scenario.survey.turn_s,
-            scenario.survey.endurance_min,
-            scenario.survey.photo_mb,
-        );
+        let layout = scenario.field_layout(&plan.report.survey);
         let (field, units) = (scenario.field.clone(), scenario.units);
         use_effect_with(asked.clone(), move |asked| {
             if !field.trim().is_empty() {
@@ -203,13 +196,7 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
             scenario.to_query(),
         );
         let (answer, asked) = (answer.clone(), scenario.clone());
-        let layout = FieldLayout::of(
-            s,
-            scenario.survey.heading_deg,
-            scenario.survey.turn_s,
-            scenario.survey.endurance_min,
-            scenario.survey.photo_mb,
-        );
+        let layout = scenario.field_layout(s);
         Callback::from(move |e: MouseEvent| {
             let format = e
                 .target_dyn_into::<web_sys::Element>()
