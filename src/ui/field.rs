@@ -283,8 +283,32 @@ pub fn serve() {
             let n = |i: u32| request.get(i).as_f64().unwrap_or(f64::NAN);
             (format.as_str(), name.as_str(), n(14), n(15))
         });
-        worker::text_answer(answer(&field, &numbers, export))
+        if export.is_some() {
+            return worker::text_answer(answer(&field, &numbers, export));
+        }
+        // The survey panel and the printed sheet ask for the same drawing when they show the same
+        // plan: the last one is kept and given again rather than laid out twice.
+        let key: Vec<u64> = numbers.iter().map(|v| v.to_bits()).collect();
+        let kept = LAST_DRAWING.with(|last| {
+            let last = last.borrow();
+            last.as_ref()
+                .filter(|(f, k, _)| *f == field && *k == key)
+                .map(|(_, _, drawn)| drawn.clone())
+        });
+        let drawn = kept.unwrap_or_else(|| {
+            let drawn = answer(&field, &numbers, None);
+            LAST_DRAWING.with(|last| *last.borrow_mut() = Some((field, key, drawn.clone())));
+            drawn
+        });
+        worker::text_answer(drawn)
     });
+}
+
+/// A drawing request: the boundary text, the layout's numbers as bits, and the answer.
+type Drawn = (String, Vec<u64>, Result<String, String>);
+
+thread_local! {
+    static LAST_DRAWING: std::cell::RefCell<Option<Drawn>> = const { std::cell::RefCell::new(None) };
 }
 
 /// In the page: asks the worker to lay out `field` with `layout` and calls `done` with the

@@ -78,6 +78,30 @@ fn reads_as(state: &State, key: &str, value: f64) -> bool {
         .unwrap_or(false)
 }
 
+/// Asks the device for its position; `place` turns it into the change to make and the words for
+/// `said`, where a refusal is said too (or, when the browser cannot tell, what to type instead).
+fn ask_position(
+    dispatch: &Callback<Action>,
+    said: &UseStateHandle<Option<String>>,
+    instead: &str,
+    place: Box<dyn Fn(f64, f64) -> (Action, String)>,
+) {
+    let (dispatch, report) = (dispatch.clone(), said.clone());
+    let asked = browser::current_position(move |result| match result {
+        Ok((lat, lon)) => {
+            let (action, words) = place(lat, lon);
+            dispatch.emit(action);
+            report.set(Some(words));
+        }
+        Err(message) => report.set(Some(message)),
+    });
+    if !asked {
+        said.set(Some(format!(
+            "This browser cannot tell the device's position; type {instead} instead."
+        )));
+    }
+}
+
 /// Camera: a generic sensor format or custom sensor size and pixel count.
 /// (A hook the form calls: a component of its own costs more code than the redraw it saves.)
 #[hook]
@@ -386,27 +410,17 @@ pub fn use_need_group(props: &InputsProps) -> Html {
 pub fn survey_group(props: &InputsProps) -> Html {
     let locating = use_state(|| Option::<String>::None);
     let on_locate = {
-        let dispatch = props.dispatch.clone();
-        let locating = locating.clone();
+        let (dispatch, said) = (props.dispatch.clone(), locating.clone());
         Callback::from(move |_| {
-            locating.set(Some("Asking this device for its position…".to_string()));
-            let dispatch = dispatch.clone();
-            let report = locating.clone();
-            let asked = browser::current_position(move |result| match result {
-                Ok((lat, lon)) => {
-                    dispatch.emit(Action::Set(vec![
-                        ("lat".into(), format_number(round_to(lat, 6))),
-                        ("lon".into(), format_number(round_to(lon, 6))),
-                    ]));
-                    report.set(Some("Origin set to this device's position.".to_string()));
-                }
-                Err(message) => report.set(Some(message)),
-            });
-            if !asked {
-                locating.set(Some(
-                    "This browser cannot tell the device's position; type the origin instead.".to_string(),
-                ));
-            }
+            said.set(Some("Asking this device for its position…".to_string()));
+            let place = |lat: f64, lon: f64| {
+                let action = Action::Set(vec![
+                    ("lat".into(), format_number(round_to(lat, 6))),
+                    ("lon".into(), format_number(round_to(lon, 6))),
+                ]);
+                (action, "Origin set to this device's position.".to_string())
+            };
+            ask_position(&dispatch, &said, "the origin", Box::new(place));
         })
     };
     // The device's position as the next corner of the boundary (a start for typing the corners
@@ -414,30 +428,24 @@ pub fn survey_group(props: &InputsProps) -> Html {
     let on_corner = {
         let (dispatch, said, field) = (props.dispatch.clone(), locating.clone(), props.state.text("field"));
         Callback::from(move |_| {
-            let (dispatch, said, field) = (dispatch.clone(), said.clone(), field.clone());
-            let report = said.clone();
-            let asked = browser::current_position(move |result| match result {
-                Ok((lat, lon)) => {
-                    let corner = format!(
-                        "{} {}",
-                        format_number(round_to(lon, 6)),
-                        format_number(round_to(lat, 6))
-                    );
-                    let joined = if field.trim().is_empty() {
-                        corner.clone()
-                    } else {
-                        format!("{}, {corner}", field.trim_end())
-                    };
-                    dispatch.emit(Action::set("field", joined));
-                    said.set(Some(format!("Corner {corner} added to the boundary.")));
-                }
-                Err(message) => said.set(Some(message)),
-            });
-            if !asked {
-                report.set(Some(
-                    "This browser cannot tell the device's position; type the corners instead.".to_string(),
-                ));
-            }
+            let field = field.clone();
+            let place = move |lat: f64, lon: f64| {
+                let corner = format!(
+                    "{} {}",
+                    format_number(round_to(lon, 6)),
+                    format_number(round_to(lat, 6))
+                );
+                let joined = if field.trim().is_empty() {
+                    corner.clone()
+                } else {
+                    format!("{}, {corner}", field.trim_end())
+                };
+                (
+                    Action::set("field", joined),
+                    format!("Corner {corner} added to the boundary."),
+                )
+            };
+            ask_position(&dispatch, &said, "the corners", Box::new(place));
         })
     };
     // A boundary file, read by its module into the boundary field; what it says is shown where

@@ -188,14 +188,8 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
     // KML and CSV (the boundary module, which draws their buttons); every button carries what it
     // downloads in `data-export`, and one listener on the panel hears them all.
     let on_click = {
-        let (field_text, name, height_m, gsd_m, query) = (
-            scenario.field.clone(),
-            scenario.name.clone(),
-            scenario.height_m,
-            plan.evaluation.gsd_m,
-            scenario.to_query(),
-        );
-        let (answer, asked) = (answer.clone(), scenario.clone());
+        // The scenario as drawn; its link is written only when a download is asked for.
+        let (answer, asked, gsd_m) = (answer.clone(), scenario.clone(), plan.evaluation.gsd_m);
         let layout = scenario.field_layout(s);
         Callback::from(move |e: MouseEvent| {
             let format = e
@@ -208,20 +202,20 @@ pub fn survey_panel(props: &SurveyProps) -> Html {
                 "csv" => ("csv", "text/csv"),
                 _ => return,
             };
-            let file = browser::file_name(&name, extension);
-            let (answer, asked) = (answer.clone(), asked.clone());
+            let file = browser::file_name(&asked.name, extension);
+            let (answer, scenario) = (answer.clone(), asked.clone());
             let done = move |result: Result<String, String>| match result {
                 Ok(text) => {
                     browser::download(&file, mime, &text);
                     answer.set(None);
                 }
-                Err(problem) => answer.set(Some((asked, problem))),
+                Err(problem) => answer.set(Some((scenario, problem))),
             };
             if format == "area" {
                 // Built by the on-demand module, which loads the first time this is pressed.
-                export::geojson(&query, done);
+                export::geojson(&asked.to_query(), done);
             } else {
-                field::export(&field_text, &layout, &format, &name, height_m, gsd_m, done);
+                field::export(&asked.field, &layout, &format, &asked.name, asked.height_m, gsd_m, done);
             }
         })
     };
