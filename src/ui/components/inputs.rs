@@ -426,10 +426,15 @@ pub fn survey_group(props: &InputsProps) -> Html {
     // The device's position as the next corner of the boundary (a start for typing the corners
     // while walking the field).
     let on_corner = {
-        let (dispatch, said, field) = (props.dispatch.clone(), locating.clone(), props.state.text("field"));
+        // The boundary's text when the position arrives, not when the button was drawn: a click
+        // before the group is drawn again, or typing while the device answers, must not be lost.
+        let latest = use_mut_ref(String::new);
+        *latest.borrow_mut() = props.state.text("field").to_string();
+        let (dispatch, said) = (props.dispatch.clone(), locating.clone());
         Callback::from(move |_| {
-            let field = field.clone();
+            let latest = latest.clone();
             let place = move |lat: f64, lon: f64| {
+                let field = latest.borrow().clone();
                 let corner = format!(
                     "{} {}",
                     format_number(round_to(lon, 6)),
